@@ -46,3 +46,12 @@ type Point struct {
 
 // IsZero reports whether p is a turning point (Order > 0).
 func (p Point) IsZero() bool { return p.Order > 0 }
+
+// DefaultBox returns the search box used when a case gives none: the real
+// interval [a, b] in real part and ±(b−a)/2 in imaginary part, wide enough to
+// hold the complex turning points that govern above-barrier reflection on
+// the scale of the interval.
+func DefaultBox(a, b float64) Box {
+	h := (b - a) / 2
+	return Box{Lo: complex(a, -h), Hi: complex(b, h)}
+}

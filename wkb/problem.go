@@ -13,3 +13,36 @@ type Problem struct {
 	Q1     jet.Func
 	Lambda float64
 }
+
+// Well is a one-dimensional Schrödinger problem on the interval [A, B],
+//
+//	−(ħ²/2m) ψ″ + V(x) ψ = E ψ,
+//
+// whose ends are either hard walls (ψ = 0 there) or open, in which case the
+// interval must reach into the classically forbidden region on that side.
+type Well struct {
+	V          jet.Func
+	Mass, Hbar float64
+	A, B       float64
+	LeftWall   bool // ψ(A) = 0 is imposed by a hard wall at A
+	RightWall  bool // ψ(B) = 0 is imposed by a hard wall at B
+}
+
+// Problem returns the canonical form at energy E: λ = 1/ħ, Q = 2m(E − V).
+func (w Well) Problem(E float64) Problem {
+	m2 := complex(2*w.Mass, 0)
+	e := complex(E, 0)
+	v := w.V
+	return Problem{
+		Q: jet.Map(func(s jet.Series) jet.Series {
+			vs := v.Taylor(s[0], s.Order())
+			if len(s) == 1 {
+				vs = jet.Series{v.Eval(s[0])}
+			}
+			q := jet.Scale(-m2, vs)
+			q[0] += m2 * e
+			return q
+		}),
+		Lambda: 1 / w.Hbar,
+	}
+}
