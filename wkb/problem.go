@@ -30,19 +30,19 @@ type Well struct {
 
 // Problem returns the canonical form at energy E: λ = 1/ħ, Q = 2m(E − V).
 func (w Well) Problem(E float64) Problem {
-	m2 := complex(2*w.Mass, 0)
-	e := complex(E, 0)
-	v := w.V
-	return Problem{
-		Q: jet.Map(func(s jet.Series) jet.Series {
-			vs := v.Taylor(s[0], s.Order())
-			if len(s) == 1 {
-				vs = jet.Series{v.Eval(s[0])}
-			}
-			q := jet.Scale(-m2, vs)
-			q[0] += m2 * e
-			return q
-		}),
-		Lambda: 1 / w.Hbar,
-	}
+	return Problem{Q: kinetic{v: w.V, m2: complex(2*w.Mass, 0), e: complex(E, 0)}, Lambda: 1 / w.Hbar}
+}
+
+// kinetic is Q = 2m(E − V) as a jet.Func.
+type kinetic struct {
+	v     jet.Func
+	m2, e complex128
+}
+
+func (k kinetic) Eval(z complex128) complex128 { return k.m2 * (k.e - k.v.Eval(z)) }
+
+func (k kinetic) Taylor(z complex128, n int) jet.Series {
+	q := jet.Scale(-k.m2, k.v.Taylor(z, n))
+	q[0] += k.m2 * k.e
+	return q
 }
