@@ -1,0 +1,256 @@
+package study
+
+import (
+	"fmt"
+	"image/color"
+	"io"
+	"math"
+	"os"
+	"path/filepath"
+	"strings"
+
+	"gonum.org/v1/plot"
+	"gonum.org/v1/plot/plotter"
+	"gonum.org/v1/plot/vg"
+	"gonum.org/v1/plot/vg/draw"
+	"gonum.org/v1/plot/vg/vgimg"
+	"gonum.org/v1/plot/vg/vgsvg"
+
+	"github.com/turnpoint/turnpoint/cases"
+	"github.com/turnpoint/turnpoint/wkb"
+)
+
+var (
+	colWKB = color.RGBA{R: 0x1f, G: 0x5f, B: 0xbf, A: 0xff}
+	colNum = color.RGBA{R: 0xd0, G: 0x40, B: 0x20, A: 0xff}
+	colErr = color.RGBA{R: 0x60, G: 0x60, B: 0x60, A: 0xff}
+)
+
+// newCanvas makes a canvas for path, SVG or PNG by its extension.
+func newCanvas(path string, w, h vg.Length) (draw.Canvas, func(io.Writer) error, error) {
+	switch strings.ToLower(filepath.Ext(path)) {
+	case ".svg":
+		c := vgsvg.New(w, h)
+		return draw.New(c), func(out io.Writer) error { _, err := c.WriteTo(out); return err }, nil
+	case ".png":
+		c := vgimg.PngCanvas{Canvas: vgimg.NewWith(vgimg.UseWH(w, h), vgimg.UseDPI(144))}
+		return draw.New(c), func(out io.Writer) error { _, err := c.WriteTo(out); return err }, nil
+	}
+	return draw.Canvas{}, nil, fmt.Errorf("figure %s: unknown format %q (use .svg or .png)", path, filepath.Ext(path))
+}
+
+func writeFile(path string, write func(io.Writer) error) error {
+	f, err := os.Create(path)
+	if err != nil {
+		return err
+	}
+	if err := write(f); err != nil {
+		f.Close()
+		return err
+	}
+	return f.Close()
+}
+
+// logTicks labels a log axis with powers of ten.
+type logTicks struct{}
+
+func (logTicks) Ticks(lo, hi float64) []plot.Tick {
+	var ts []plot.Tick
+	a, b := math.Floor(math.Log10(lo)), math.Ceil(math.Log10(hi))
+	step := math.Max(1, math.Ceil((b-a)/8))
+	for e := a; e <= b; e += step {
+		ts = append(ts, plot.Tick{Value: math.Pow(10, e), Label: fmt.Sprintf("1e%d", int(e))})
+	}
+	return ts
+}
+
+// plotScan draws R and T against the scan variable, WKB and numerics, with
+// the relative difference and the WKB error estimate in a second panel.
+func plotScan(c *cases.Case, sr *ScanReport, forceLog bool, path string) error {
+	var rW, tW, rN, tN, dR, dT, eR plotter.XYs
+	minR, maxR := math.Inf(1), 0.0
+	for _, r := range sr.Rows {
+		if r.WKB != nil {
+			rW = appendPos(rW, r.At, float64(r.WKB.R))
+			tW = appendPos(tW, r.At, float64(r.WKB.T))
+		}
+		if r.Numeric != nil {
+			rN = appendPos(rN, r.At, float64(r.Numeric.R))
+			tN = appendPos(tN, r.At, float64(r.Numeric.T))
+			if v := float64(r.Numeric.R); v > 0 {
+				minR, maxR = math.Min(minR, v), math.Max(maxR, v)
+			}
+		}
+		if r.R != nil {
+			dR = appendPos(dR, r.At, float64(r.R.RelDiff))
+			if r.WKB != nil && r.Numeric != nil && r.Numeric.R > 0 {
+				eR = appendPos(eR, r.At, float64(r.WKB.ErrR)/float64(r.Numeric.R))
+			}
+		}
+		if r.T != nil {
+			dT = appendPos(dT, r.At, float64(r.T.RelDiff))
+		}
+	}
+	logR := forceLog || (maxR > 0 && maxR/minR > 1e3)
+
+	top := plot.New()
+	top.Title.Text = figureTitle(c, "reflection and transmission")
+	top.X.Label.Text = sr.Label
+	top.Legend.Top = true
+	if logR {
+		top.Y.Scale = plot.LogScale{}
+		top.Y.Tick.Marker = logTicks{}
+		top.Y.Label.Text = "R, T (log scale)"
+	} else {
+		top.Y.Label.Text = "R, T"
+	}
+	add := func(xy plotter.XYs, col color.Color, dashed bool, name string) {
+		if len(xy) == 0 {
+			return
+		}
+		l, err := plotter.NewLine(xy)
+		if err != nil {
+			return
+		}
+		l.Color = col
+		l.Width = vg.Points(1.3)
+		if dashed {
+			l.Dashes = []vg.Length{vg.Points(5), vg.Points(3)}
+		}
+		top.Add(l)
+		top.Legend.Add(name, l)
+	}
+	addPts := func(p *plot.Plot, xy plotter.XYs, col color.Color, shape draw.GlyphDrawer, name string) {
+		if len(xy) == 0 {
+			return
+		}
+		s, err := plotter.NewScatter(xy)
+		if err != nil {
+			return
+		}
+		s.Color = col
+		s.Shape = shape
+		s.Radius = vg.Points(2)
+		p.Add(s)
+		p.Legend.Add(name, s)
+	}
+	add(rW, colWKB, false, "R (WKB)")
+	add(tW, colWKB, true, "T (WKB)")
+	addPts(top, rN, colNum, draw.CircleGlyph{}, "R (numerical)")
+	addPts(top, tN, colNum, draw.BoxGlyph{}, "T (numerical)")
+
+	bot := plot.New()
+	bot.Title.Text = "WKB against numerics"
+	bot.X.Label.Text = sr.Label
+	bot.Y.Label.Text = "relative difference"
+	bot.Y.Scale = plot.LogScale{}
+	bot.Y.Tick.Marker = logTicks{}
+	bot.Legend.Top = true
+	addPts(bot, dR, colNum, draw.CircleGlyph{}, "|R_wkb − R_num| / R_num")
+	addPts(bot, dT, colWKB, draw.BoxGlyph{}, "|T_wkb − T_num| / T_num")
+	if len(eR) > 0 {
+		if l, err := plotter.NewLine(eR); err == nil {
+			l.Color = colErr
+			l.Dashes = []vg.Length{vg.Points(2), vg.Points(2)}
+			bot.Add(l)
+			bot.Legend.Add("WKB error estimate of R", l)
+		}
+	}
+	canvas, write, err := newCanvas(path, 16*vg.Centimeter, 18*vg.Centimeter)
+	if err != nil {
+		return err
+	}
+	tiles := draw.Tiles{Rows: 2, Cols: 1, PadX: vg.Millimeter * 4, PadY: vg.Millimeter * 6,
+		PadTop: vg.Millimeter * 2, PadBottom: vg.Millimeter * 2, PadLeft: vg.Millimeter * 2, PadRight: vg.Millimeter * 4}
+	plots := [][]*plot.Plot{{top}, {bot}}
+	cs := plot.Align(plots, tiles, canvas)
+	top.Draw(cs[0][0])
+	if len(dR)+len(dT) > 0 {
+		bot.Draw(cs[1][0])
+	}
+	return writeFile(path, write)
+}
+
+// appendPos appends (x, y) when y is positive and finite (log axes).
+func appendPos(xy plotter.XYs, x, y float64) plotter.XYs {
+	if y > 0 && !math.IsInf(y, 0) && !math.IsNaN(y) {
+		xy = append(xy, plotter.XY{X: x, Y: y})
+	}
+	return xy
+}
+
+// plotLevels draws V(x) with each level as a segment between its turning
+// points at its WKB energy, the numerical energies as markers.
+func plotLevels(c *cases.Case, w wkb.Well, lr *LevelsReport, path string) error {
+	p := plot.New()
+	p.Title.Text = figureTitle(c, "potential and levels")
+	p.X.Label.Text = "x"
+	p.Y.Label.Text = "V(x), E"
+	a, b := w.A, w.B
+	var vxy plotter.XYs
+	const n = 400
+	for i := 0; i <= n; i++ {
+		x := a + (b-a)*float64(i)/n
+		v := real(w.V.Eval(complex(x, 0)))
+		if !math.IsNaN(v) && !math.IsInf(v, 0) {
+			vxy = append(vxy, plotter.XY{X: x, Y: v})
+		}
+	}
+	emax := math.Inf(-1)
+	for _, r := range lr.Rows {
+		emax = math.Max(emax, math.Max(float64(r.WKB), float64(r.Numeric)))
+	}
+	if !math.IsInf(emax, 0) {
+		// Clip the drawn potential a little above the highest level.
+		lo := math.Inf(1)
+		for _, q := range vxy {
+			lo = math.Min(lo, q.Y)
+		}
+		top := emax + 0.25*(emax-lo)
+		for i := range vxy {
+			vxy[i].Y = math.Min(vxy[i].Y, top)
+		}
+	}
+	if l, err := plotter.NewLine(vxy); err == nil {
+		l.Width = vg.Points(1.5)
+		p.Add(l)
+		p.Legend.Add("V(x)", l)
+	}
+	var num plotter.XYs
+	first := true
+	for _, r := range lr.Rows {
+		e := float64(r.WKB)
+		if math.IsNaN(e) {
+			continue
+		}
+		seg := plotter.XYs{{X: r.Turning[0], Y: e}, {X: r.Turning[1], Y: e}}
+		if l, err := plotter.NewLine(seg); err == nil {
+			l.Color = colWKB
+			l.Width = vg.Points(1)
+			p.Add(l)
+			if first {
+				p.Legend.Add("WKB level between its turning points", l)
+				first = false
+			}
+		}
+		if en := float64(r.Numeric); !math.IsNaN(en) {
+			num = append(num, plotter.XY{X: (r.Turning[0] + r.Turning[1]) / 2, Y: en})
+		}
+	}
+	if len(num) > 0 {
+		if s, err := plotter.NewScatter(num); err == nil {
+			s.Color = colNum
+			s.Shape = draw.CrossGlyph{}
+			s.Radius = vg.Points(3)
+			p.Add(s)
+			p.Legend.Add("numerical energy", s)
+		}
+	}
+	p.Legend.Top = true
+	canvas, write, err := newCanvas(path, 16*vg.Centimeter, 11*vg.Centimeter)
+	if err != nil {
+		return err
+	}
+	p.Draw(canvas)
+	return writeFile(path, write)
+}

@@ -1,0 +1,411 @@
+package study
+
+import (
+	"fmt"
+	"math"
+	"path/filepath"
+	"runtime"
+	"sort"
+	"sync"
+
+	"github.com/turnpoint/turnpoint/cases"
+	"github.com/turnpoint/turnpoint/connect"
+	"github.com/turnpoint/turnpoint/connect/direct"
+	"github.com/turnpoint/turnpoint/connect/eigen"
+	"github.com/turnpoint/turnpoint/turning"
+	"github.com/turnpoint/turnpoint/turning/stokes"
+	"github.com/turnpoint/turnpoint/wkb"
+	"github.com/turnpoint/turnpoint/wkb/jet"
+	"github.com/turnpoint/turnpoint/wkb/levels"
+)
+
+// Study selects what Run computes.
+type Study uint
+
+// The studies; All is every study the case file lists.
+const (
+	Points     Study = 1 << iota // turning points and singularities
+	Geometry                     // Stokes and anti-Stokes lines
+	Scattering                   // the [scan] table
+	Levels                       // the [levels] table
+	All        = Points | Geometry | Scattering | Levels
+)
+
+// Options says how to run. A nil *Options means the defaults.
+type Options struct {
+	Workers   int                   // parallel scan points; 0 means runtime.NumCPU()
+	Progress  func(done, total int) // called as scan points finish; nil for none
+	FigureDir string                // directory for figures; "" writes none
+	FigureExt string                // ".svg" (the default) or ".png"
+	LogR      bool                  // logarithmic R axis in the scan figure (default: automatic)
+}
+
+func (o *Options) figurePath(name string) string {
+	ext := ".svg"
+	if o.FigureExt != "" {
+		ext = o.FigureExt
+	}
+	return filepath.Join(o.FigureDir, name+ext)
+}
+
+func (o *Options) workers() int {
+	if o == nil || o.Workers <= 0 {
+		return runtime.NumCPU()
+	}
+	return o.Workers
+}
+
+// Assumptions printed with every report: what the figures rest on.
+var assumptions = []string{
+	"WKB figures are asymptotic in 1/lambda; their error estimates are the next (or least) term of the series, not rigorous bounds",
+	"numerical figures come from direct integration of the same equation; their error estimates compare two tolerances",
+	"Q is taken to be analytic in the search box apart from the poles reported; a branch point of the formula invalidates complex-plane results",
+	"results are for validation and design exploration; safety-critical designs need independent validation",
+}
+
+// Run runs the selected studies of c. It does not stop at the first failure:
+// a study that could not be computed is recorded in Report.Errors.
+func Run(c *cases.Case, what Study, opt *Options) *Report {
+	a, b := c.Interval()
+	rep := &Report{
+		Case:       c.Path,
+		Title:      c.Title,
+		Form:       c.Form.String(),
+		Interval:   [2]float64{a, b},
+		Convention: stokes.Convention,
+		Assumes:    assumptions,
+	}
+	if p, err := c.Problem(); err == nil {
+		rep.Lambda = Number(p.Lambda)
+	} else {
+		rep.Lambda = Number(math.NaN())
+	}
+	var levelsRep *LevelsReport
+	if what&Levels != 0 && c.Levels != nil {
+		levelsRep = runLevels(c, opt, rep)
+		rep.Levels = levelsRep
+	}
+	if what&(Points|Geometry) != 0 {
+		p, at, err := geometryProblem(c, levelsRep)
+		if err != nil {
+			rep.Errors = append(rep.Errors, fmt.Sprintf("turning points: %v", err))
+		} else {
+			pts, res := findPoints(p, c.SearchBox())
+			pts.At = at
+			rep.Points = pts
+			if what&Geometry != 0 && res != nil {
+				rep.Stokes = traceGeometry(c, p, res, opt, rep)
+			}
+		}
+	}
+	if what&Scattering != 0 && c.Scan != nil {
+		rep.Scan = runScan(c, opt, rep)
+	}
+	runChecks(c, rep, opt)
+	rep.Summary = summarise(rep)
+	return rep
+}
+
+// geometryProblem picks the problem whose turning points are reported: the
+// file's base values, else the middle of the scan, else the lowest level.
+func geometryProblem(c *cases.Case, lv *LevelsReport) (wkb.Problem, *float64, error) {
+	p, err := c.Problem()
+	if err == nil {
+		return p, nil, nil
+	}
+	if c.Scan != nil {
+		vals := c.Scan.Values()
+		v := vals[len(vals)/2]
+		p, err2 := c.ProblemAt(v)
+		if err2 == nil {
+			return p, &v, nil
+		}
+	}
+	if lv != nil && c.Schrodinger != nil {
+		for _, r := range lv.Rows {
+			e := float64(r.WKB)
+			if math.IsNaN(e) {
+				e = float64(r.Numeric)
+			}
+			if math.IsNaN(e) {
+				continue
+			}
+			w, err := c.Well()
+			if err != nil {
+				return wkb.Problem{}, nil, err
+			}
+			return w.Problem(e), &e, nil
+		}
+	}
+	return wkb.Problem{}, nil, err
+}
+
+func findPoints(p wkb.Problem, box turning.Box) (*PointsReport, *turning.Result) {
+	rep := &PointsReport{Box: [2]Complex{C(box.Lo), C(box.Hi)}}
+	res, err := turning.Find(p.Q, box, nil)
+	if err != nil {
+		rep.Status = "failed"
+		rep.Warnings = append(rep.Warnings, err.Error())
+		return rep, nil
+	}
+	for _, pt := range res.Points {
+		rep.Points = append(rep.Points, PointEntry{
+			Z: C(pt.Z), Order: pt.Order, Kind: pt.Kind.String(),
+			Residual: Number(pt.Residual), Err: Number(pt.Err),
+		})
+	}
+	rep.Winding, rep.Zeros, rep.Poles = res.Winding, res.Zeros, res.Poles
+	rep.Status = res.Status.String()
+	rep.Complete = res.Status == turning.Complete
+	rep.Warnings = append(rep.Warnings, res.Warnings...)
+	return rep, res
+}
+
+func traceGeometry(c *cases.Case, p wkb.Problem, res *turning.Result, opt *Options, rep *Report) *StokesReport {
+	g, err := stokes.Trace(p.Q, res.Points, res.Box, nil)
+	if err != nil {
+		rep.Errors = append(rep.Errors, fmt.Sprintf("stokes geometry: %v", err))
+		return nil
+	}
+	sr := &StokesReport{Warnings: g.Warnings}
+	for _, l := range g.Lines {
+		e := LineEntry{Family: l.Family.String(), From: l.From, EndsOn: l.End.String(), To: l.To,
+			StartAngle: Number(l.StartAngle * 180 / math.Pi), Samples: len(l.Path)}
+		if len(l.Path) > 0 {
+			e.Start, e.End = C(l.Path[0]), C(l.Path[len(l.Path)-1])
+		}
+		sr.Lines = append(sr.Lines, e)
+	}
+	for _, d := range g.Degeneracies {
+		sr.Degeneracies = append(sr.Degeneracies, DegeneracyEntry{From: d.From, To: d.To, Gap: C(d.Gap)})
+	}
+	if opt != nil && opt.FigureDir != "" {
+		a, b := c.Interval()
+		path := opt.figurePath("stokes")
+		if err := stokes.Plot(g, stokes.PlotOptions{Title: figureTitle(c, "Stokes geometry"), Interval: [2]float64{a, b}}, path); err != nil {
+			rep.Errors = append(rep.Errors, fmt.Sprintf("stokes figure: %v", err))
+		} else {
+			sr.Figure = path
+			rep.Figures = append(rep.Figures, path)
+		}
+	}
+	return sr
+}
+
+func figureTitle(c *cases.Case, what string) string {
+	if c.Title != "" {
+		return c.Title + ": " + what
+	}
+	return what
+}
+
+// scatterAt computes one scan point by WKB and numerically.
+func scatterAt(c *cases.Case, v float64, base bool) ScanRow {
+	row := ScanRow{At: v}
+	var p wkb.Problem
+	var err error
+	if base {
+		p, err = c.Problem()
+	} else {
+		p, err = c.ProblemAt(v)
+	}
+	if err != nil {
+		row.Error = err.Error()
+		return row
+	}
+	a, b := c.Interval()
+	res, err := turning.Find(p.Q, c.SearchBox(), nil)
+	var pts []turning.Point
+	if err != nil {
+		row.Error = fmt.Sprintf("turning points: %v", err)
+	} else {
+		pts = res.Points
+	}
+	if w, err := connect.Scatter(p, a, b, pts, nil); err != nil {
+		row.Error = joinErr(row.Error, fmt.Sprintf("wkb: %v", err))
+	} else {
+		amp := &Amplitude{R: Number(w.R), T: Number(w.T), ErrR: Number(w.ErrR), ErrT: Number(w.ErrT),
+			Refl: C(w.Refl), Trans: C(w.Trans), Method: w.Method, Order: w.Order, Warnings: w.Warnings}
+		if w.Dominant != nil {
+			d := C(w.Dominant.Z)
+			amp.Dominant = &d
+		}
+		row.WKB = amp
+	}
+	var sing []complex128
+	for _, pt := range pts {
+		sing = append(sing, pt.Z)
+	}
+	if n, err := direct.Scatter(p, a, b, &direct.Settings{Singularities: sing}); err != nil {
+		row.Error = joinErr(row.Error, fmt.Sprintf("numeric: %v", err))
+	} else {
+		row.Numeric = &Amplitude{R: Number(n.R), T: Number(n.T), ErrR: Number(n.ErrR), ErrT: Number(n.ErrT),
+			Refl: C(n.Refl), Trans: C(n.Trans), Method: n.Method, Unitarity: Number(n.Unitarity)}
+	}
+	if row.WKB != nil && row.Numeric != nil {
+		row.R = compare(float64(row.WKB.R), float64(row.WKB.ErrR), float64(row.Numeric.R), float64(row.Numeric.ErrR))
+		row.T = compare(float64(row.WKB.T), float64(row.WKB.ErrT), float64(row.Numeric.T), float64(row.Numeric.ErrT))
+	}
+	return row
+}
+
+func joinErr(a, b string) string {
+	if a == "" {
+		return b
+	}
+	return a + "; " + b
+}
+
+func runScan(c *cases.Case, opt *Options, rep *Report) *ScanReport {
+	vals := c.Scan.Values()
+	sr := &ScanReport{Over: c.Scan.Over, Label: c.ScanLabel(), Rows: make([]ScanRow, len(vals))}
+	var wg sync.WaitGroup
+	jobs := make(chan int)
+	var mu sync.Mutex
+	done := 0
+	for range opt.workers() {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for i := range jobs {
+				sr.Rows[i] = scatterAt(c, vals[i], false)
+				if opt != nil && opt.Progress != nil {
+					mu.Lock()
+					done++
+					opt.Progress(done, len(vals))
+					mu.Unlock()
+				}
+			}
+		}()
+	}
+	for i := range vals {
+		jobs <- i
+	}
+	close(jobs)
+	wg.Wait()
+	if len(vals) > 1 {
+		family := func(v float64) (jet.Func, []turning.Point, error) {
+			p, err := c.ProblemAt(v)
+			if err != nil {
+				return nil, nil, err
+			}
+			res, err := turning.Find(p.Q, c.SearchBox(), nil)
+			if err != nil {
+				return nil, nil, err
+			}
+			return p.Q, res.Points, nil
+		}
+		if d, err := stokes.FindDegeneracy(family, vals[0], vals[len(vals)-1]); err == nil {
+			sr.Degeneracies = d
+		} else {
+			rep.Warnings = append(rep.Warnings, fmt.Sprintf("degeneracy scan: %v", err))
+		}
+	}
+	if opt != nil && opt.FigureDir != "" {
+		path := opt.figurePath("scan")
+		if err := plotScan(c, sr, opt.LogR, path); err != nil {
+			rep.Errors = append(rep.Errors, fmt.Sprintf("scan figure: %v", err))
+		} else {
+			rep.Figures = append(rep.Figures, path)
+		}
+	}
+	return sr
+}
+
+func runLevels(c *cases.Case, opt *Options, rep *Report) *LevelsReport {
+	lr := &LevelsReport{}
+	w, err := c.Well()
+	if err != nil {
+		rep.Errors = append(rep.Errors, fmt.Sprintf("levels: %v", err))
+		return lr
+	}
+	ns := c.Levels.N
+	rows := make([]LevelRow, len(ns))
+	for i, n := range ns {
+		rows[i] = LevelRow{N: n, WKB: Number(math.NaN()), WKBErr: Number(math.NaN()),
+			Numeric: Number(math.NaN()), NumErr: Number(math.NaN())}
+	}
+	wl, err := levels.Solve(w, ns, &levels.Settings{MaxOrder: c.Levels.MaxOrder})
+	if err != nil {
+		lr.Warnings = append(lr.Warnings, fmt.Sprintf("wkb: %v", err))
+	}
+	for _, l := range wl {
+		i := sort.SearchInts(ns, l.N)
+		if i >= len(ns) || ns[i] != l.N {
+			continue
+		}
+		r := &rows[i]
+		r.WKB, r.WKBErr, r.Order, r.Maslov, r.Turning, r.Omega, r.Method = Number(l.E), Number(l.Err), l.Order, l.Maslov, l.Turning, Number(l.Omega), l.Method
+		for _, e := range l.ByOrder {
+			r.ByOrder = append(r.ByOrder, Number(e))
+		}
+		r.Warnings = append(r.Warnings, l.Warnings...)
+	}
+	nl, err := eigen.Levels(w, ns, nil)
+	if err != nil {
+		lr.Warnings = append(lr.Warnings, fmt.Sprintf("numeric: %v", err))
+	}
+	for _, l := range nl {
+		i := sort.SearchInts(ns, l.N)
+		if i >= len(ns) || ns[i] != l.N {
+			continue
+		}
+		rows[i].Numeric, rows[i].NumErr = Number(l.E), Number(l.Err)
+		rows[i].Warnings = append(rows[i].Warnings, l.Warnings...)
+	}
+	for i := range rows {
+		r := &rows[i]
+		if !math.IsNaN(float64(r.WKB)) && !math.IsNaN(float64(r.Numeric)) {
+			r.Verdict = compare(float64(r.WKB), float64(r.WKBErr), float64(r.Numeric), float64(r.NumErr))
+		}
+	}
+	lr.Rows = rows
+	if opt != nil && opt.FigureDir != "" {
+		path := opt.figurePath("levels")
+		if err := plotLevels(c, w, lr, path); err != nil {
+			rep.Errors = append(rep.Errors, fmt.Sprintf("levels figure: %v", err))
+		} else {
+			lr.Figure = path
+			rep.Figures = append(rep.Figures, path)
+		}
+	}
+	return lr
+}
+
+func summarise(rep *Report) Summary {
+	var s Summary
+	count := func(v *Verdict, what string) {
+		if v == nil {
+			return
+		}
+		s.Figures++
+		if v.Agree {
+			s.Agree++
+		} else {
+			s.Disagree++
+			rep.Failures = append(rep.Failures, what+": "+v.Reason)
+		}
+	}
+	if rep.Scan != nil {
+		for _, r := range rep.Scan.Rows {
+			count(r.R, fmt.Sprintf("R at %s = %g", rep.Scan.Label, r.At))
+			count(r.T, fmt.Sprintf("T at %s = %g", rep.Scan.Label, r.At))
+		}
+	}
+	if rep.Levels != nil {
+		for _, r := range rep.Levels.Rows {
+			count(r.Verdict, fmt.Sprintf("E[%d]", r.N))
+		}
+		for _, d := range rep.Levels.Doublets {
+			count(d.Verdict, fmt.Sprintf("splitting[%d]", d.N))
+		}
+	}
+	for _, ch := range rep.Checks {
+		s.Checks++
+		if !ch.Pass {
+			s.Regressed++
+			rep.Failures = append(rep.Failures, ch.Message)
+		}
+	}
+	return s
+}

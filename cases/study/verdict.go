@@ -1,0 +1,32 @@
+package study
+
+import (
+	"fmt"
+	"math"
+)
+
+// compare judges a WKB figure against its numerical check: they agree when
+// their difference is within the sum of the two stated error estimates.
+func compare(wkb, errWKB, num, errNum float64) *Verdict {
+	diff := math.Abs(wkb - num)
+	allowed := errWKB + errNum
+	scale := math.Abs(num)
+	if scale == 0 {
+		scale = 1
+	}
+	v := &Verdict{RelDiff: Number(diff / scale), Allowed: Number(allowed / scale)}
+	switch {
+	case math.IsNaN(wkb) || math.IsNaN(num):
+		v.Reason = "a figure is missing"
+	case math.IsNaN(errWKB) || math.IsInf(errWKB, 0):
+		v.Reason = "the WKB figure has no finite error estimate"
+	case math.IsNaN(errNum) || math.IsInf(errNum, 0):
+		v.Reason = "the numerical figure has no finite error estimate"
+	case diff <= allowed:
+		v.Agree = true
+	default:
+		v.Reason = fmt.Sprintf("differ by %.2g relative, %.1f× the combined estimate %.2g",
+			diff/scale, diff/allowed, allowed/scale)
+	}
+	return v
+}

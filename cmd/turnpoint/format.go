@@ -1,0 +1,227 @@
+package main
+
+import (
+	"fmt"
+	"io"
+	"math"
+	"strings"
+	"text/tabwriter"
+
+	"github.com/turnpoint/turnpoint/cases/study"
+)
+
+// fmtC formats a complex number compactly.
+func fmtC(z study.Complex) string {
+	if z.Im == 0 {
+		return fmt.Sprintf("%.10g", z.Re)
+	}
+	sign := "+"
+	im := z.Im
+	if im < 0 {
+		sign, im = "-", -im
+	}
+	return fmt.Sprintf("%.10g %s %.10gi", z.Re, sign, im)
+}
+
+func fmtN(n study.Number, digits int) string {
+	f := float64(n)
+	if math.IsNaN(f) {
+		return "—"
+	}
+	return fmt.Sprintf("%.*g", digits, f)
+}
+
+func fmtErr(n study.Number) string {
+	f := float64(n)
+	if math.IsNaN(f) || math.IsInf(f, 0) {
+		return "±?"
+	}
+	return fmt.Sprintf("±%.1e", f)
+}
+
+func verdictWord(v *study.Verdict) string {
+	switch {
+	case v == nil:
+		return "—"
+	case v.Agree:
+		return "agree"
+	}
+	return "DIFFER"
+}
+
+func newTable(w io.Writer) *tabwriter.Writer {
+	return tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+}
+
+// writeHeader prints the case's identity and conventions.
+func writeHeader(w io.Writer, r *study.Report) {
+	title := r.Title
+	if title == "" {
+		title = "(untitled)"
+	}
+	fmt.Fprintf(w, "case      %s — %s\n", r.Case, title)
+	fmt.Fprintf(w, "equation  y'' + (lambda^2 Q(x) + Q1(x)) y = 0, form %s, lambda = %s, interval [%g, %g]\n",
+		r.Form, fmtN(r.Lambda, 8), r.Interval[0], r.Interval[1])
+}
+
+func writePoints(w io.Writer, p *study.PointsReport) {
+	if p == nil {
+		return
+	}
+	at := ""
+	if p.At != nil {
+		at = fmt.Sprintf(" (at scan value %g)", *p.At)
+	}
+	fmt.Fprintf(w, "\nturning points and singularities of Q%s\nsearch box Re x in [%g, %g], Im x in [%g, %g]\n",
+		at, p.Box[0].Re, p.Box[1].Re, p.Box[0].Im, p.Box[1].Im)
+	tw := newTable(w)
+	fmt.Fprintln(tw, "  #\tposition\torder\tkind\t|residual|\tposition error")
+	for i, q := range p.Points {
+		fmt.Fprintf(tw, "  %d\t%s\t%d\t%s\t%s\t%s\n", i, fmtC(q.Z), q.Order, q.Kind, fmtN(q.Residual, 2), fmtN(q.Err, 2))
+	}
+	tw.Flush()
+	state := "complete: every zero and pole counted by the argument principle is listed"
+	if !p.Complete {
+		state = "INCOMPLETE (" + p.Status + "): the list may miss points"
+	}
+	fmt.Fprintf(w, "argument principle: winding %d = %d zeros - %d poles; %s\n", p.Winding, p.Zeros, p.Poles, state)
+	for _, s := range p.Warnings {
+		fmt.Fprintf(w, "warning: %s\n", s)
+	}
+}
+
+func writeStokes(w io.Writer, r *study.Report) {
+	s := r.Stokes
+	if s == nil {
+		return
+	}
+	fmt.Fprintf(w, "\nStokes geometry (%s)\n", r.Convention)
+	tw := newTable(w)
+	fmt.Fprintln(tw, "  from\tfamily\tstart angle\tends on\tend point")
+	for _, l := range s.Lines {
+		to := l.EndsOn
+		if l.To >= 0 {
+			to = fmt.Sprintf("%s #%d", l.EndsOn, l.To)
+		}
+		fmt.Fprintf(tw, "  #%d\t%s\t%s°\t%s\t%s\n", l.From, l.Family, fmtN(l.StartAngle, 4), to, fmtC(l.End))
+	}
+	tw.Flush()
+	if len(s.Degeneracies) == 0 {
+		fmt.Fprintln(w, "no Stokes line joins two turning points")
+	}
+	for _, d := range s.Degeneracies {
+		fmt.Fprintf(w, "DEGENERACY: a Stokes line joins turning points #%d and #%d (integral of sqrt Q between them %s): first-order connection formulae change here; a uniform formula is used\n",
+			d.From, d.To, fmtC(d.Gap))
+	}
+	for _, x := range s.Warnings {
+		fmt.Fprintf(w, "warning: %s\n", x)
+	}
+	if s.Figure != "" {
+		fmt.Fprintf(w, "figure: %s\n", s.Figure)
+	}
+}
+
+func writeScan(w io.Writer, s *study.ScanReport) {
+	if s == nil {
+		return
+	}
+	fmt.Fprintf(w, "\nscattering, wave incident from the left, R = |r|^2, T = |t|^2 flux-normalised; scan over %s\n", s.Label)
+	tw := newTable(w)
+	fmt.Fprintf(tw, "  %s\tR (WKB)\t\tR (numerical)\t\tdiff\tT (WKB)\t\tT (numerical)\t\tdiff\tverdict\tWKB formula\n", s.Label)
+	for _, r := range s.Rows {
+		if r.WKB == nil || r.Numeric == nil {
+			fmt.Fprintf(tw, "  %.6g\tnot computed: %s\n", r.At, r.Error)
+			continue
+		}
+		verdict := "agree"
+		if !r.R.Agree || !r.T.Agree {
+			verdict = "DIFFER"
+		}
+		fmt.Fprintf(tw, "  %.6g\t%.6g\t%s\t%.10g\t%s\t%.1e\t%.6g\t%s\t%.10g\t%s\t%.1e\t%s\t%s\n", r.At,
+			float64(r.WKB.R), fmtErr(r.WKB.ErrR), float64(r.Numeric.R), fmtErr(r.Numeric.ErrR), float64(r.R.RelDiff),
+			float64(r.WKB.T), fmtErr(r.WKB.ErrT), float64(r.Numeric.T), fmtErr(r.Numeric.ErrT), float64(r.T.RelDiff),
+			verdict, r.WKB.Method)
+	}
+	tw.Flush()
+	for _, d := range s.Degeneracies {
+		fmt.Fprintf(w, "Stokes degeneracy (a Stokes line joins two turning points) near %s = %.6g\n", s.Label, d)
+	}
+	seen := map[string]bool{}
+	for _, r := range s.Rows {
+		if r.WKB == nil {
+			continue
+		}
+		for _, x := range r.WKB.Warnings {
+			if !seen[x] {
+				seen[x] = true
+				fmt.Fprintf(w, "warning (WKB, first at %s = %g): %s\n", s.Label, r.At, x)
+			}
+		}
+	}
+}
+
+func writeLevels(w io.Writer, l *study.LevelsReport) {
+	if l == nil {
+		return
+	}
+	fmt.Fprintln(w, "\nbound states by quantum number n (number of nodes)")
+	tw := newTable(w)
+	fmt.Fprintln(tw, "  n\tE (WKB)\t\torder\tMaslov\tE (numerical)\t\tdiff\tverdict\tturning points")
+	for _, r := range l.Rows {
+		fmt.Fprintf(tw, "  %d\t%s\t%s\t%d\t%d\t%s\t%s\t%s\t%s\t[%.6g, %.6g]\n", r.N,
+			fmtN(r.WKB, 12), fmtErr(r.WKBErr), r.Order, r.Maslov, fmtN(r.Numeric, 14), fmtErr(r.NumErr),
+			relDiff(r.Verdict), verdictWord(r.Verdict), r.Turning[0], r.Turning[1])
+	}
+	tw.Flush()
+	if len(l.Doublets) > 0 {
+		fmt.Fprintln(w, "tunnel splittings")
+		tw = newTable(w)
+		fmt.Fprintln(tw, "  n\tsplitting (WKB)\t\tsplitting (numerical)\t\tdiff\tverdict\tformula")
+		for _, d := range l.Doublets {
+			fmt.Fprintf(tw, "  %d\t%s\t%s\t%s\t%s\t%s\t%s\t%s\n", d.N, fmtN(d.Splitting, 8), fmtErr(d.SplittingErr),
+				fmtN(d.Numeric, 10), fmtErr(d.NumericErr), relDiff(d.Verdict), verdictWord(d.Verdict), d.Method)
+		}
+		tw.Flush()
+	}
+	for _, x := range l.Warnings {
+		fmt.Fprintf(w, "warning: %s\n", x)
+	}
+	if l.Figure != "" {
+		fmt.Fprintf(w, "figure: %s\n", l.Figure)
+	}
+}
+
+func relDiff(v *study.Verdict) string {
+	if v == nil {
+		return "—"
+	}
+	return fmt.Sprintf("%.1e", float64(v.RelDiff))
+}
+
+func writeChecks(w io.Writer, r *study.Report) {
+	if len(r.Checks) == 0 {
+		return
+	}
+	fmt.Fprintln(w, "\nexpectations of the case file")
+	for _, c := range r.Checks {
+		if c.Pass {
+			fmt.Fprintf(w, "  ok      %s %s = %.10g (expected %.10g ± %.2g; %s)\n", c.Where, c.Quantity, float64(c.Got), c.Want, c.Tol, c.Source)
+		} else {
+			fmt.Fprintf(w, "  FAILED  %s\n", c.Message)
+		}
+	}
+}
+
+func writeSummary(w io.Writer, r *study.Report) {
+	fmt.Fprintln(w)
+	for _, e := range r.Errors {
+		fmt.Fprintf(w, "error: %s\n", e)
+	}
+	s := r.Summary
+	fmt.Fprintf(w, "summary: %d WKB figures compared with numerics, %d agree within the stated estimates, %d do not; %d expectations, %d outside tolerance\n",
+		s.Figures, s.Agree, s.Disagree, s.Checks, s.Regressed)
+	for _, f := range r.Failures {
+		fmt.Fprintf(w, "  - %s\n", f)
+	}
+	fmt.Fprintf(w, "assumes: %s\n", strings.Join(r.Assumes, "; "))
+}
