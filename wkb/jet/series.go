@@ -251,13 +251,65 @@ func Sinh(a Series) Series { s, _ := sincos(a, true); return s }
 // Cosh returns cosh(a).
 func Cosh(a Series) Series { _, c := sincos(a, true); return c }
 
-// Tanh returns tanh(a).
-func Tanh(a Series) Series { s, c := sincos(a, true); return Div(s, c) }
+// Tanh returns tanh(a), from t′ = (1 − t²)a′. The leading value uses
+// exp(−2|Re a|), so it stays finite where cosh overflows.
+func Tanh(a Series) Series {
+	t, _ := tanhSech(a)
+	return t
+}
 
-// Sech returns 1/cosh(a).
+// Sech returns 1/cosh(a), from s′ = −s·t·a′; finite for large |Re a|.
 func Sech(a Series) Series {
-	_, c := sincos(a, true)
-	return Div(Const(1, a.Order()), c)
+	_, s := tanhSech(a)
+	return s
+}
+
+// tanhSech returns the series of tanh(a) and sech(a) together.
+func tanhSech(a Series) (t, s Series) {
+	n := len(a)
+	t = make(Series, n)
+	s = make(Series, n)
+	t[0], s[0] = stableTanhSech(a[0])
+	tt := make(Series, n) // t², built as t grows
+	st := make(Series, n) // s·t
+	tt[0] = t[0] * t[0]
+	st[0] = s[0] * t[0]
+	for k := 1; k < n; k++ {
+		var dt, ds complex128
+		for j := 1; j <= k; j++ {
+			w := complex(float64(j), 0) * a[j]
+			one := complex128(0)
+			if k-j == 0 {
+				one = 1
+			}
+			dt += w * (one - tt[k-j])
+			ds -= w * st[k-j]
+		}
+		kk := complex(float64(k), 0)
+		t[k], s[k] = dt/kk, ds/kk
+		for j := 0; j <= k; j++ {
+			tt[k] += t[j] * t[k-j]
+			st[k] += s[j] * t[k-j]
+		}
+	}
+	return t, s
+}
+
+// stableTanhSech evaluates tanh z and sech z through e = exp(−2|Re z|·…),
+// which never overflows: for Re z ≥ 0, tanh z = (1 − e)/(1 + e) and
+// sech z = 2 exp(−z)/(1 + e) with e = exp(−2z); odd/even symmetry for Re z < 0.
+func stableTanhSech(z complex128) (complex128, complex128) {
+	neg := real(z) < 0
+	if neg {
+		z = -z
+	}
+	e := cmplx.Exp(-2 * z)
+	t := (1 - e) / (1 + e)
+	s := 2 * cmplx.Exp(-z) / (1 + e)
+	if neg {
+		t = -t
+	}
+	return t, s
 }
 
 // IsFinite reports whether every coefficient of s is finite.
