@@ -77,6 +77,8 @@ func Run(c *cases.Case, what Study, opt *Options) *Report {
 	}
 	if p, err := c.Problem(); err == nil {
 		rep.Lambda = Number(p.Lambda)
+	} else if c.Schrodinger != nil {
+		rep.Lambda = Number(1 / c.Schrodinger.Hbar)
 	} else {
 		rep.Lambda = Number(math.NaN())
 	}
@@ -101,7 +103,9 @@ func Run(c *cases.Case, what Study, opt *Options) *Report {
 	if what&Scattering != 0 && c.Scan != nil {
 		rep.Scan = runScan(c, opt, rep)
 	}
-	runChecks(c, rep, opt)
+	if what == All {
+		runChecks(c, rep, opt)
+	}
 	rep.Summary = summarise(rep)
 	return rep
 }

@@ -12,6 +12,14 @@ import (
 
 // fmtC formats a complex number compactly.
 func fmtC(z study.Complex) string {
+	// Parts below rounding relative to the other part are printed as zero.
+	scale := math.Max(math.Abs(z.Re), math.Abs(z.Im))
+	if math.Abs(z.Re) < 1e-14*scale {
+		z.Re = 0
+	}
+	if math.Abs(z.Im) < 1e-14*scale {
+		z.Im = 0
+	}
 	if z.Im == 0 {
 		return fmt.Sprintf("%.10g", z.Re)
 	}
@@ -154,7 +162,7 @@ func writeScan(w io.Writer, s *study.ScanReport) {
 		for _, x := range r.WKB.Warnings {
 			if !seen[x] {
 				seen[x] = true
-				fmt.Fprintf(w, "warning (WKB, first at %s = %g): %s\n", s.Label, r.At, x)
+				fmt.Fprintf(w, "warning (WKB, first at %s = %.6g): %s\n", s.Label, r.At, x)
 			}
 		}
 	}
@@ -218,6 +226,9 @@ func writeSummary(w io.Writer, r *study.Report) {
 		fmt.Fprintf(w, "error: %s\n", e)
 	}
 	s := r.Summary
+	if s.Figures == 0 && s.Checks == 0 {
+		return
+	}
 	fmt.Fprintf(w, "summary: %d WKB figures compared with numerics, %d agree within the stated estimates, %d do not; %d expectations, %d outside tolerance\n",
 		s.Figures, s.Agree, s.Disagree, s.Checks, s.Regressed)
 	for _, f := range r.Failures {
