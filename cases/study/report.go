@@ -63,7 +63,8 @@ func (s Summary) OK() bool { return s.Disagree == 0 && s.Regressed == 0 }
 
 // PointsReport lists the turning points and singularities in the search box.
 type PointsReport struct {
-	At       *float64     `json:"at,omitempty"` // scan value they belong to, nil for the base values
+	At       *float64     `json:"at,omitempty"`      // value they belong to, nil for the base values
+	AtWhat   string       `json:"at_what,omitempty"` // what At is: a scan value or a level's energy
 	Box      [2]Complex   `json:"box"`
 	Points   []PointEntry `json:"points"`
 	Winding  int          `json:"winding"` // zeros minus poles from the argument principle

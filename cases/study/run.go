@@ -88,12 +88,12 @@ func Run(c *cases.Case, what Study, opt *Options) *Report {
 		rep.Levels = levelsRep
 	}
 	if what&(Points|Geometry) != 0 {
-		p, at, err := geometryProblem(c, levelsRep)
+		p, at, atWhat, err := geometryProblem(c, levelsRep)
 		if err != nil {
 			rep.Errors = append(rep.Errors, fmt.Sprintf("turning points: %v", err))
 		} else {
 			pts, res := findPoints(p, c.SearchBox())
-			pts.At = at
+			pts.At, pts.AtWhat = at, atWhat
 			rep.Points = pts
 			if what&Geometry != 0 && res != nil {
 				rep.Stokes = traceGeometry(c, p, res, opt, rep)
@@ -112,17 +112,17 @@ func Run(c *cases.Case, what Study, opt *Options) *Report {
 
 // geometryProblem picks the problem whose turning points are reported: the
 // file's base values, else the middle of the scan, else the lowest level.
-func geometryProblem(c *cases.Case, lv *LevelsReport) (wkb.Problem, *float64, error) {
+func geometryProblem(c *cases.Case, lv *LevelsReport) (wkb.Problem, *float64, string, error) {
 	p, err := c.Problem()
 	if err == nil {
-		return p, nil, nil
+		return p, nil, "", nil
 	}
 	if c.Scan != nil {
 		vals := c.Scan.Values()
 		v := vals[len(vals)/2]
 		p, err2 := c.ProblemAt(v)
 		if err2 == nil {
-			return p, &v, nil
+			return p, &v, fmt.Sprintf("the middle of the scan, %s", c.ScanLabel()), nil
 		}
 	}
 	if lv != nil && c.Schrodinger != nil {
@@ -136,12 +136,12 @@ func geometryProblem(c *cases.Case, lv *LevelsReport) (wkb.Problem, *float64, er
 			}
 			w, err := c.Well()
 			if err != nil {
-				return wkb.Problem{}, nil, err
+				return wkb.Problem{}, nil, "", err
 			}
-			return w.Problem(e), &e, nil
+			return w.Problem(e), &e, fmt.Sprintf("the energy of level n = %d, E", r.N), nil
 		}
 	}
-	return wkb.Problem{}, nil, err
+	return wkb.Problem{}, nil, "", err
 }
 
 func findPoints(p wkb.Problem, box turning.Box) (*PointsReport, *turning.Result) {

@@ -16,11 +16,13 @@ type Change struct {
 	Old, New float64 // the recorded and the current value
 }
 
-// Rewrite returns c's source with the value of every expectation replaced
-// by the figure now computed (as listed in rep.Checks, in file order), and
-// the changes made. Only the number itself is replaced, so comments and
-// layout are preserved. Expectations whose figure could not be computed are
-// left alone.
+// Rewrite returns c's source with the value of every expectation that left
+// its tolerance replaced by the figure now computed (rep.Checks, in file
+// order), and the changes made. Expectations that still hold are kept as
+// written, so a closed-form reference is never overwritten by a computed
+// value that agrees with it. Only the number itself is replaced, so comments
+// and layout are preserved. Expectations whose figure could not be computed
+// are left alone.
 func Rewrite(c *cases.Case, rep *Report) ([]byte, []Change, error) {
 	if len(rep.Checks) != len(c.Expect) {
 		return nil, nil, fmt.Errorf("%s: %d expectations but %d checks", c.Path, len(c.Expect), len(rep.Checks))
@@ -33,7 +35,7 @@ func Rewrite(c *cases.Case, rep *Report) ([]byte, []Change, error) {
 		if math.IsNaN(got) || math.IsInf(got, 0) {
 			continue
 		}
-		if got == e.Value {
+		if rep.Checks[i].Pass || got == e.Value {
 			continue
 		}
 		line, col := e.Pos.Line, e.Pos.Column

@@ -34,8 +34,9 @@ case library.
 
 --shard K/N runs the K-th of N deterministic slices (K = 1..N) of the sorted case list,
 so a large suite can be spread over the jobs of a batch system and the JSON lines
-concatenated. --update rewrites each expected value from the current results, changing
-only the number in the file, and prints what changed.
+concatenated. --update rewrites each expected value that left its tolerance with the
+current result, changing only the number in the file, and prints what changed; values
+that still hold (closed-form references among them) are left as written.
 
 Exit status: 0 all passed, 1 something regressed, 2 bad input.`,
 }

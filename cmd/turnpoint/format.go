@@ -78,7 +78,7 @@ func writePoints(w io.Writer, p *study.PointsReport) {
 	}
 	at := ""
 	if p.At != nil {
-		at = fmt.Sprintf(" (at scan value %g)", *p.At)
+		at = fmt.Sprintf(" at %s = %.8g", p.AtWhat, *p.At)
 	}
 	fmt.Fprintf(w, "\nturning points and singularities of Q%s\nsearch box Re x in [%g, %g], Im x in [%g, %g]\n",
 		at, p.Box[0].Re, p.Box[1].Re, p.Box[0].Im, p.Box[1].Im)
@@ -193,6 +193,14 @@ func writeLevels(w io.Writer, l *study.LevelsReport) {
 	}
 	for _, x := range l.Warnings {
 		fmt.Fprintf(w, "warning: %s\n", x)
+	}
+	for _, r := range l.Rows {
+		for _, x := range r.Warnings {
+			fmt.Fprintf(w, "warning (n = %d): %s\n", r.N, x)
+		}
+		if r.Error != "" {
+			fmt.Fprintf(w, "error (n = %d): %s\n", r.N, r.Error)
+		}
 	}
 	if l.Figure != "" {
 		fmt.Fprintf(w, "figure: %s\n", l.Figure)

@@ -10,6 +10,7 @@ import (
 	"fmt"
 	"io"
 	"os"
+	"strings"
 )
 
 func main() {
@@ -54,7 +55,13 @@ func exitStatus(err error, stderr io.Writer) int {
 		code = ee.code
 	}
 	if !errors.Is(err, errSilentFailure) {
-		fmt.Fprintf(stderr, "turnpoint: %v\n", err)
+		// Case-file errors carry an excerpt with a caret under the place.
+		var d interface{ Detail() string }
+		if errors.As(err, &d) {
+			fmt.Fprintf(stderr, "turnpoint: %s\n", strings.TrimRight(d.Detail(), "\n"))
+		} else {
+			fmt.Fprintf(stderr, "turnpoint: %v\n", err)
+		}
 	}
 	return code
 }

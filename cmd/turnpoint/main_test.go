@@ -22,7 +22,8 @@ func runCLI(t *testing.T, args ...string) (string, string, int) {
 	t.Helper()
 	var out, errb bytes.Buffer
 	err := route(args, &out, &errb)
-	return out.String(), errb.String(), exitStatus(err, &errb)
+	code := exitStatus(err, &errb)
+	return out.String(), errb.String(), code
 }
 
 func TestHelpGolden(t *testing.T) {
