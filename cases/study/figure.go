@@ -51,15 +51,23 @@ func writeFile(path string, write func(io.Writer) error) error {
 	return f.Close()
 }
 
-// logTicks labels a log axis with powers of ten.
-type logTicks struct{}
+// logTicks labels a log axis with powers of ten up to Top (the data's
+// range; the axis may extend beyond it to leave room for the legend).
+type logTicks struct{ Top float64 }
 
-func (logTicks) Ticks(lo, hi float64) []plot.Tick {
+func (lt logTicks) Ticks(lo, hi float64) []plot.Tick {
 	var ts []plot.Tick
+	if lt.Top > 0 && lt.Top < hi {
+		hi = lt.Top
+	}
 	a, b := math.Floor(math.Log10(lo)), math.Ceil(math.Log10(hi))
 	step := math.Max(1, math.Ceil((b-a)/8))
-	for e := a; e <= b; e += step {
-		ts = append(ts, plot.Tick{Value: math.Pow(10, e), Label: fmt.Sprintf("1e%d", int(e))})
+	for e := b; e >= a; e -= step { // from the top, so 1 = 1e0 is labelled
+		label := fmt.Sprintf("1e%d", int(e))
+		if e == 0 {
+			label = "1"
+		}
+		ts = append([]plot.Tick{{Value: math.Pow(10, e), Label: label}}, ts...)
 	}
 	return ts
 }
@@ -67,7 +75,7 @@ func (logTicks) Ticks(lo, hi float64) []plot.Tick {
 // plotScan draws R and T against the scan variable, WKB and numerics, with
 // the relative difference and the WKB error estimate in a second panel.
 func plotScan(c *cases.Case, sr *ScanReport, forceLog bool, path string) error {
-	var rW, tW, rN, tN, dR, dT, eR plotter.XYs
+	var rW, tW, rN, tN, dR, dT, eR, eT plotter.XYs
 	minR, maxR := math.Inf(1), 0.0
 	for _, r := range sr.Rows {
 		if r.WKB != nil {
@@ -89,6 +97,9 @@ func plotScan(c *cases.Case, sr *ScanReport, forceLog bool, path string) error {
 		}
 		if r.T != nil {
 			dT = appendPos(dT, r.At, float64(r.T.RelDiff))
+			if r.WKB != nil && r.Numeric != nil && r.Numeric.T > 0 {
+				eT = appendPos(eT, r.At, float64(r.WKB.ErrT)/float64(r.Numeric.T))
+			}
 		}
 	}
 	logR := forceLog || (maxR > 0 && maxR/minR > 1e3)
@@ -97,12 +108,25 @@ func plotScan(c *cases.Case, sr *ScanReport, forceLog bool, path string) error {
 	top.Title.Text = figureTitle(c, "reflection and transmission")
 	top.X.Label.Text = sr.Label
 	top.Legend.Top = true
+	// Headroom above the data keeps the legend off the curves.
 	if logR {
+		lo := math.Inf(1)
+		for _, xy := range []plotter.XYs{rW, tW, rN, tN} {
+			for _, q := range xy {
+				lo = math.Min(lo, q.Y)
+			}
+		}
 		top.Y.Scale = plot.LogScale{}
-		top.Y.Tick.Marker = logTicks{}
+		top.Y.Tick.Marker = logTicks{Top: 1}
 		top.Y.Label.Text = "R, T (log scale)"
+		if lo < 1 {
+			top.Y.Min = lo / 2
+			top.Y.Max = math.Pow(10, 0.45*math.Log10(1/lo))
+		}
 	} else {
 		top.Y.Label.Text = "R, T"
+		top.Y.Min, top.Y.Max = 0, 1.6
+		top.Y.Tick.Marker = plot.ConstantTicks([]plot.Tick{{Value: 0, Label: "0"}, {Value: 0.25}, {Value: 0.5, Label: "0.5"}, {Value: 0.75}, {Value: 1, Label: "1"}})
 	}
 	add := func(xy plotter.XYs, col color.Color, dashed bool, name string) {
 		if len(xy) == 0 {
@@ -144,16 +168,22 @@ func plotScan(c *cases.Case, sr *ScanReport, forceLog bool, path string) error {
 	bot.X.Label.Text = sr.Label
 	bot.Y.Label.Text = "relative difference"
 	bot.Y.Scale = plot.LogScale{}
-	bot.Y.Tick.Marker = logTicks{}
 	bot.Legend.Top = true
 	addPts(bot, dR, colNum, draw.CircleGlyph{}, "|R_wkb − R_num| / R_num")
 	addPts(bot, dT, colWKB, draw.BoxGlyph{}, "|T_wkb − T_num| / T_num")
-	if len(eR) > 0 {
-		if l, err := plotter.NewLine(eR); err == nil {
-			l.Color = colErr
+	for _, e := range []struct {
+		xy   plotter.XYs
+		col  color.Color
+		name string
+	}{{eR, colNum, "WKB error estimate of R"}, {eT, colWKB, "WKB error estimate of T"}} {
+		if len(e.xy) == 0 {
+			continue
+		}
+		if l, err := plotter.NewLine(e.xy); err == nil {
+			l.Color = e.col
 			l.Dashes = []vg.Length{vg.Points(2), vg.Points(2)}
 			bot.Add(l)
-			bot.Legend.Add("WKB error estimate of R", l)
+			bot.Legend.Add(e.name, l)
 		}
 	}
 	canvas, write, err := newCanvas(path, 16*vg.Centimeter, 18*vg.Centimeter)
@@ -162,6 +192,18 @@ func plotScan(c *cases.Case, sr *ScanReport, forceLog bool, path string) error {
 	}
 	tiles := draw.Tiles{Rows: 2, Cols: 1, PadX: vg.Millimeter * 4, PadY: vg.Millimeter * 6,
 		PadTop: vg.Millimeter * 2, PadBottom: vg.Millimeter * 2, PadLeft: vg.Millimeter * 2, PadRight: vg.Millimeter * 4}
+	// Headroom for the lower legend, as above.
+	lo, hi := math.Inf(1), 0.0
+	for _, xy := range []plotter.XYs{dR, dT, eR, eT} {
+		for _, q := range xy {
+			lo, hi = math.Min(lo, q.Y), math.Max(hi, q.Y)
+		}
+	}
+	if hi > 0 {
+		bot.Y.Min = lo / 2
+		bot.Y.Max = hi * math.Pow(hi/lo, 0.45)
+		bot.Y.Tick.Marker = logTicks{Top: hi * 2}
+	}
 	plots := [][]*plot.Plot{{top}, {bot}}
 	cs := plot.Align(plots, tiles, canvas)
 	top.Draw(cs[0][0])
@@ -200,17 +242,6 @@ func plotLevels(c *cases.Case, w wkb.Well, lr *LevelsReport, path string) error 
 	for _, r := range lr.Rows {
 		emax = math.Max(emax, math.Max(float64(r.WKB), float64(r.Numeric)))
 	}
-	if !math.IsInf(emax, 0) {
-		// Clip the drawn potential a little above the highest level.
-		lo := math.Inf(1)
-		for _, q := range vxy {
-			lo = math.Min(lo, q.Y)
-		}
-		top := emax + 0.25*(emax-lo)
-		for i := range vxy {
-			vxy[i].Y = math.Min(vxy[i].Y, top)
-		}
-	}
 	if l, err := plotter.NewLine(vxy); err == nil {
 		l.Width = vg.Points(1.5)
 		p.Add(l)
@@ -247,6 +278,18 @@ func plotLevels(c *cases.Case, w wkb.Well, lr *LevelsReport, path string) error 
 		}
 	}
 	p.Legend.Top = true
+	if !math.IsInf(emax, 0) {
+		// Show the potential up to a little above the highest level (the
+		// line is clipped there), with headroom for the legend. Set after
+		// the plotters are added, which widen the axes to their data.
+		lo := math.Inf(1)
+		for _, q := range vxy {
+			lo = math.Min(lo, q.Y)
+		}
+		top := emax + 0.2*(emax-lo)
+		p.Y.Min = lo - 0.05*(top-lo)
+		p.Y.Max = top + 0.3*(top-lo)
+	}
 	canvas, write, err := newCanvas(path, 16*vg.Centimeter, 11*vg.Centimeter)
 	if err != nil {
 		return err

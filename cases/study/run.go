@@ -6,6 +6,7 @@ import (
 	"path/filepath"
 	"runtime"
 	"sort"
+	"strings"
 	"sync"
 
 	"github.com/turnpoint/turnpoint/cases"
@@ -88,7 +89,12 @@ func Run(c *cases.Case, what Study, opt *Options) *Report {
 		rep.Levels = levelsRep
 	}
 	if what&(Points|Geometry) != 0 {
-		p, at, atWhat, err := geometryProblem(c, levelsRep)
+		lv := levelsRep
+		if _, err := c.Problem(); err != nil && lv == nil && c.Levels != nil && c.Scan == nil {
+			// The geometry of a bound-state case is drawn at its lowest level.
+			lv = runLevels(c, nil, &Report{})
+		}
+		p, at, atWhat, err := geometryProblem(c, lv)
 		if err != nil {
 			rep.Errors = append(rep.Errors, fmt.Sprintf("turning points: %v", err))
 		} else {
@@ -329,7 +335,8 @@ func runLevels(c *cases.Case, opt *Options, rep *Report) *LevelsReport {
 		rows[i] = LevelRow{N: n, WKB: Number(math.NaN()), WKBErr: Number(math.NaN()),
 			Numeric: Number(math.NaN()), NumErr: Number(math.NaN())}
 	}
-	wl, err := levels.Solve(w, ns, &levels.Settings{MaxOrder: c.Levels.MaxOrder})
+	set := &levels.Settings{MaxOrder: c.Levels.MaxOrder}
+	wl, doublets, err := wkbLevels(w, ns, set)
 	if err != nil {
 		lr.Warnings = append(lr.Warnings, fmt.Sprintf("wkb: %v", err))
 	}
@@ -345,17 +352,41 @@ func runLevels(c *cases.Case, opt *Options, rep *Report) *LevelsReport {
 		}
 		r.Warnings = append(r.Warnings, l.Warnings...)
 	}
-	nl, err := eigen.Levels(w, ns, nil)
+	for i := range rows {
+		if math.IsNaN(float64(rows[i].WKB)) {
+			rows[i].Error = "no WKB level computed (see the warnings)"
+		}
+	}
+	// A doublet's numerical splitting needs both of its levels.
+	numNs := append([]int(nil), ns...)
+	for _, d := range doublets {
+		numNs = append(numNs, 2*d.N, 2*d.N+1)
+	}
+	numNs = uniqueSorted(numNs)
+	numE := map[int][2]float64{}
+	nl, err := eigen.Levels(w, numNs, nil)
 	if err != nil {
 		lr.Warnings = append(lr.Warnings, fmt.Sprintf("numeric: %v", err))
 	}
 	for _, l := range nl {
+		numE[l.N] = [2]float64{l.E, l.Err}
 		i := sort.SearchInts(ns, l.N)
 		if i >= len(ns) || ns[i] != l.N {
 			continue
 		}
 		rows[i].Numeric, rows[i].NumErr = Number(l.E), Number(l.Err)
 		rows[i].Warnings = append(rows[i].Warnings, l.Warnings...)
+	}
+	for _, d := range doublets {
+		row := DoubletRow{N: d.N, Splitting: Number(d.Splitting), SplittingErr: Number(d.SplittingErr),
+			Numeric: Number(math.NaN()), NumericErr: Number(math.NaN()), Method: d.Method}
+		lo, okLo := numE[2*d.N]
+		hi, okHi := numE[2*d.N+1]
+		if okLo && okHi {
+			row.Numeric, row.NumericErr = Number(hi[0]-lo[0]), Number(hi[1]+lo[1])
+			row.Verdict = compare(d.Splitting, d.SplittingErr, hi[0]-lo[0], hi[1]+lo[1])
+		}
+		lr.Doublets = append(lr.Doublets, row)
 	}
 	for i := range rows {
 		r := &rows[i]
@@ -412,4 +443,38 @@ func summarise(rep *Report) Summary {
 		}
 	}
 	return s
+}
+
+// wkbLevels computes the WKB levels ns of w. A double well is quantised by
+// the uniform connection through its barrier, doublet by doublet (doublet d
+// holds levels 2d and 2d+1), so that levels are numbered by their node count
+// in the whole well as the numerics number them; a single well by
+// Bohr–Sommerfeld with its higher orders.
+func wkbLevels(w wkb.Well, ns []int, s *levels.Settings) ([]levels.Level, []levels.Doublet, error) {
+	var ds []int
+	for _, n := range ns {
+		ds = append(ds, n/2)
+	}
+	ds = uniqueSorted(ds)
+	doublets, err := levels.Doublets(w, ds, s)
+	if err != nil && len(doublets) == 0 && strings.Contains(err.Error(), "single well") {
+		wl, err := levels.Solve(w, ns, s)
+		return wl, nil, err
+	}
+	var out []levels.Level
+	for _, d := range doublets {
+		out = append(out, d.Lower, d.Upper)
+	}
+	return out, doublets, err
+}
+
+func uniqueSorted(xs []int) []int {
+	sort.Ints(xs)
+	out := xs[:0]
+	for i, x := range xs {
+		if i == 0 || x != xs[i-1] {
+			out = append(out, x)
+		}
+	}
+	return out
 }

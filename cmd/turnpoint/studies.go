@@ -263,6 +263,12 @@ func init() {
 						r.Errors = append(r.Errors, err.Error())
 					}
 					r.Figures = []string{*fig}
+					if r.Stokes != nil {
+						r.Stokes.Figure = *fig
+					}
+					if r.Levels != nil {
+						r.Levels.Figure = *fig
+					}
 				}
 				if csvPath != nil && *csvPath != "" && r.Scan != nil {
 					if err := writeCSV(*csvPath, r.Scan); err != nil {

@@ -1,0 +1,48 @@
+// Package levels computes bound-state energies of one-dimensional wells by
+// phase-integral quantisation: Bohr–Sommerfeld with Maslov indices, the
+// higher-order WKB series optimally truncated at its least term, and the
+// uniform quantisation of two wells coupled through a barrier, which gives
+// doublets and tunnel splittings.
+//
+// # Conventions
+//
+// A wkb.Well is −(ħ²/2m)ψ″ + Vψ = Eψ on [A, B], so λ = 1/ħ and
+// Q = 2m(E − V). Quantum numbers n count the nodes of the state. A soft end
+// is a turning point V = E inside the interval; a hard end is a wall at A or
+// B (Well.LeftWall, Well.RightWall) reached while V < E. The Maslov index μ
+// is 2 for two soft ends, 3 for one soft end and one wall, 4 for two walls:
+//
+//	λ ∫_a^b √Q dx = π (n + μ/4)     (first order, "order 0")
+//
+// and to higher order Σ_k λ^(1−2k) σ_{2k} = π(n + μ/4), where σ_{2k} is
+//   - for two soft ends the closed-contour integral (1/2i)∮φ_{2k} of
+//     wkb.PairPhase;
+//   - for a wall and a soft end the finite part of ∫ φ_{2k}/i from the wall
+//     to the turning point, computed as half a loop integral from the wall
+//     around the turning point and back on the other sheet (the integrands
+//     have half-integer power singularities, so no logarithm spoils the
+//     finite part); the order-2 term reproduces the second term of the
+//     asymptotic expansion of the Airy zeros (Abramowitz & Stegun 10.4.94);
+//   - for two walls the ordinary integral of φ_{2k}/i between them (ψ =
+//     Im exp ∫φ vanishes at both; the odd terms only change the amplitude).
+//
+// # Several wells
+//
+// Doublets treats four real turning points t1 < t2 < t3 < t4 (two wells
+// separated by a barrier) with the condition derived in doublet.go: the
+// parabolic (Weber) connection through the barrier, carrying the phase
+// φ(ε) of package special, and the comparison with a parabolic well at each
+// well's bottom, which supplies the factor that the textbook splitting
+// (ħω/π)e^(−θ) lacks for low levels (√(π/e) for the ground state). Above
+// the barrier top the same condition continues with the barrier's complex
+// turning points (θ < 0).
+//
+// # Error estimates
+//
+// Every energy carries Err: the least term of the phase series converted
+// to energy by dE = δ/(∂Phase/∂E) = δ ħω/π, plus the quadrature errors, plus
+// (two soft ends) Beyond, the exponentially small coupling to the nearest
+// other zero of Q that no order of the series sees. For coupled wells the
+// change at the next order, the uncertainty of the comparison mappings
+// (well bottoms, barrier top) and, near the top, the previous change.
+package levels
