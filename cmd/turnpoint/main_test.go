@@ -229,3 +229,14 @@ func TestCommandTable(t *testing.T) {
 		t.Error("checkFailed does not carry exit status 1")
 	}
 }
+
+// BenchmarkCheckLibrary runs the whole bundled library as "turnpoint check"
+// does (all cores); the README quotes its time.
+func BenchmarkCheckLibrary(b *testing.B) {
+	for range b.N {
+		var out, errb bytes.Buffer
+		if err := route([]string{"check"}, &out, &errb); err != nil {
+			b.Fatalf("%v\n%s", err, out.String())
+		}
+	}
+}

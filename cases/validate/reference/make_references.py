@@ -61,7 +61,7 @@ def scat(name, Q, lam, a, b, at, closed_R=None, closed_T=None, right="plane"):
     different series degree and precision (or from the closed form)."""
     R, T, _ = scatter(Q, lam, a, b, right)
     save = (mp.dps, refcore.ORDER)
-    mp.dps, refcore.ORDER = 46, 40
+    mp.dps, refcore.ORDER = 44, 40
     R2, T2, _ = scatter(Q, lam, a, b, right)
     mp.dps, refcore.ORDER = save
     dR = agree_digits(R, R2, 30)
@@ -84,14 +84,14 @@ def run_scattering():
         Ev = mpf(E)
         Q = lambda x, Ev=Ev: 2 * m * (Ev - U0 * jsech2(al * x))
         Tc = cosh2_T(Ev, U0, al, m, hb)
-        scat("cosh2-barrier", Q, 1 / hb, -30, 30, E, closed_R=1 - Tc, closed_T=Tc)
+        scat("cosh2-barrier", Q, 1 / hb, -22, 22, E, closed_R=1 - Tc, closed_T=Tc)
 
     # S2: asymmetric Eckart-type barrier (step plus sech^2 hump), numerics only.
     V1, V2, w, m, hb = mpf("0.4"), mpf("1.2"), mpf("0.5"), mpf(1), mpf("0.1")
     for E in ("0.9", "1.35", "1.8"):
         Ev = mpf(E)
         Q = lambda x, Ev=Ev: 2 * m * (Ev - V1 * jfermi(x / w) - V2 * jsech2(x / (2 * w)))
-        scat("eckart-asym", Q, 1 / hb, -25, 25, E)
+        scat("eckart-asym", Q, 1 / hb, -20, 20, E)
 
     # S3: quantum smooth step U0/(1+exp(-alpha x)) above the step: tiny R.
     U0, al, m, hb = mpf("0.6"), mpf("2.5"), mpf(1), mpf("0.05")
@@ -100,7 +100,7 @@ def run_scattering():
         Q = lambda x, Ev=Ev: 2 * m * (Ev - U0 * jfermi(al * x))
         k1, k2 = sqrt(2 * m * Ev) / hb, sqrt(2 * m * (Ev - U0)) / hb
         Rc = step_R(k1, k2, al)
-        scat("smooth-step", Q, 1 / hb, -35, 35, E, closed_R=Rc, closed_T=1 - Rc)
+        scat("smooth-step", Q, 1 / hb, -20, 20, E, closed_R=Rc, closed_T=1 - Rc)
 
     # S4: Epstein graded layer at oblique incidence, s waves:
     # eps(x) = 1 + (n2^2 - 1)/(1 + exp(-x/w)), theta = 35 deg in n_in = 1.
@@ -152,7 +152,7 @@ def resonance(QD, lam, V0, d, s, m, hb):
     golden section on log T) and the energy above it where T = 1/2; both are
     rounded to 13 digits and returned as strings."""
     save = mp.dps, refcore.ORDER
-    mp.dps, refcore.ORDER = 20, 30
+    mp.dps, refcore.ORDER = 16, 24
 
     def T(E):
         return scatter(QD(mpf(E)), lam, -5, 5)[1]
@@ -171,7 +171,7 @@ def resonance(QD, lam, V0, d, s, m, hb):
     a, b = lo, hi
     c, e = b - g * (b - a), a + g * (b - a)
     Tc, Te = T(c), T(e)
-    for _ in range(60):
+    for _ in range(40):
         if Tc > Te:
             b, e, Te = e, c, Tc
             c = b - g * (b - a)
@@ -187,7 +187,7 @@ def resonance(QD, lam, V0, d, s, m, hb):
     a, b = Eres, Eres + mpf("0.01")
     while T(b) > mpf("0.5"):
         b = Eres + 2 * (b - Eres)
-    for _ in range(45):
+    for _ in range(30):
         mid = (a + b) / 2
         if T(mid) > mpf("0.5"):
             a = mid

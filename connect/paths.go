@@ -1,0 +1,215 @@
+package connect
+
+import (
+	"fmt"
+	"math"
+	"math/cmplx"
+	"sort"
+	"sync"
+
+	"gonum.org/v1/gonum/integrate/quad"
+
+	"github.com/turnpoint/turnpoint/wkb"
+)
+
+// glRule is a cached Gauss–Legendre rule on [0, 1].
+type glRule struct{ x, w []float64 }
+
+var (
+	glMu    sync.Mutex
+	glCache = map[int]glRule{}
+)
+
+func legendre(n int) glRule {
+	glMu.Lock()
+	defer glMu.Unlock()
+	if r, ok := glCache[n]; ok {
+		return r
+	}
+	r := glRule{x: make([]float64, n), w: make([]float64, n)}
+	quad.Legendre{}.FixedLocations(r.x, r.w, 0, 1)
+	// Ascending order: the branch of √Q is continued node by node.
+	idx := make([]int, n)
+	for i := range idx {
+		idx[i] = i
+	}
+	sort.Slice(idx, func(i, j int) bool { return r.x[idx[i]] < r.x[idx[j]] })
+	x, w := make([]float64, n), make([]float64, n)
+	for i, k := range idx {
+		x[i], w[i] = r.x[k], r.w[k]
+	}
+	r.x, r.w = x, w
+	glCache[n] = r
+	return r
+}
+
+// path is a parametrised curve z(s), s ∈ [0, 1], with its derivative.
+type path func(s float64) (z, dz complex128)
+
+// terms evaluates the even Riccati terms −iφ_{2k}, k = 0…K, at z, with the
+// branch of √Q nearest to hint; it returns them and the root used.
+func terms(p wkb.Problem, z, hint complex128, K int) ([]complex128, complex128) {
+	phi := wkb.RiccatiAt(p, z, hint, 2*K)
+	v := make([]complex128, K+1)
+	for k := range v {
+		v[k] = -1i * phi[2*k]
+	}
+	return v, v[0]
+}
+
+// pathResult is the integral of the even Riccati terms along a path.
+type pathResult struct {
+	val  []complex128 // ∫ −iφ_{2k} dz, k = 0…K
+	err  []float64    // change between the last two panel counts
+	root complex128   // branch of √Q at the end of the path
+}
+
+// integratePath integrates the even terms along pth with composite
+// Gauss–Legendre (16 nodes a panel), the branch of √Q continued from root0
+// at s = 0 node by node; the panels are doubled until every term changes by
+// less than tol relative to the scale of its integrand (at most 2¹⁰ panels).
+func integratePath(p wkb.Problem, pth path, root0 complex128, K int, tol float64) (*pathResult, error) {
+	const nodes = 16
+	rule := legendre(nodes)
+	var prev *pathResult
+	for panels := 2; panels <= 1<<10; panels *= 2 {
+		cur := &pathResult{val: make([]complex128, K+1), err: make([]float64, K+1)}
+		scale := make([]float64, K+1)
+		hint := root0
+		h := 1 / float64(panels)
+		for i := 0; i < panels; i++ {
+			for j := 0; j < nodes; j++ {
+				s := (float64(i) + rule.x[j]) * h
+				z, dz := pth(s)
+				v, r := terms(p, z, hint, K)
+				hint = r
+				for k := range v {
+					f := v[k] * dz
+					if cmplx.IsNaN(f) || cmplx.IsInf(f) {
+						return nil, fmt.Errorf("connect: WKB integrand not finite at %v", z)
+					}
+					cur.val[k] += complex(rule.w[j]*h, 0) * f
+					scale[k] += rule.w[j] * h * cmplx.Abs(f)
+				}
+			}
+		}
+		cur.root = hint
+		if prev != nil {
+			ok := true
+			for k := range cur.val {
+				cur.err[k] = cmplx.Abs(cur.val[k] - prev.val[k])
+				if cur.err[k] > tol*scale[k]+1e-300 {
+					ok = false
+				}
+			}
+			if ok {
+				return cur, nil
+			}
+		}
+		prev = cur
+	}
+	return nil, fmt.Errorf("connect: path quadrature did not converge in %d panels (change %.3g)", 1<<10, maxf(prev.err))
+}
+
+func maxf(v []float64) float64 {
+	m := 0.0
+	for _, x := range v {
+		m = math.Max(m, x)
+	}
+	return m
+}
+
+// segment is the straight path from z0 to z1.
+func segment(z0, z1 complex128) path {
+	return func(s float64) (complex128, complex128) { return z0 + complex(s, 0)*(z1-z0), z1 - z0 }
+}
+
+// loop is the circle about t through c, once round anticlockwise from c.
+func loop(t, c complex128) path {
+	return func(s float64) (complex128, complex128) {
+		e := cmplx.Exp(complex(0, 2*math.Pi*s))
+		return t + (c-t)*e, complex(0, 2*math.Pi) * (c - t) * e
+	}
+}
+
+// finitePart returns FP∫_c^t −iφ_{2k} dz = ½∮ −iφ_{2k} dz, the loop about the
+// simple turning point t starting and ending at c: each integrand is
+// (z−t)^{j+½} times a function analytic at t, which changes sign round
+// the loop, so half the loop is the (finite part of the) integral from c
+// to t. root is the branch of √Q at c.
+func finitePart(p wkb.Problem, t, c, root complex128, K int, tol float64) (*pathResult, error) {
+	r, err := integratePath(p, loop(t, c), root, K, tol)
+	if err != nil {
+		return nil, err
+	}
+	for k := range r.val {
+		r.val[k] /= 2
+		r.err[k] /= 2
+	}
+	if cmplx.Abs(r.root+root) > 0.5*cmplx.Abs(root) {
+		return nil, fmt.Errorf("connect: √Q did not change sign round the turning point %v: another zero or pole lies within %.3g of it", t, cmplx.Abs(c-t))
+	}
+	return r, nil
+}
+
+// verticalS returns Im ∫_x^z √Q along the vertical segment from x = Re z,
+// with √Q > 0 at x, and the complex integral itself. The substitution
+// z(s) = x + iY(1 − (1−s)²) makes the integrand smooth at a simple zero or
+// simple pole at the end point.
+func verticalS(p wkb.Problem, z complex128, tol float64) (complex128, error) {
+	x := real(z)
+	y := imag(z)
+	q0 := p.Q.Eval(complex(x, 0))
+	if !(real(q0) > 0) {
+		return 0, fmt.Errorf("connect: Q(%g) = %v is not positive below %v", x, q0, z)
+	}
+	pth := func(s float64) (complex128, complex128) {
+		u := 1 - s
+		return complex(x, y*(1-u*u)), complex(0, 2*y*u)
+	}
+	const nodes = 16
+	rule := legendre(nodes)
+	var prev complex128
+	for panels := 2; panels <= 1<<10; panels *= 2 {
+		var sum complex128
+		scale := 0.0
+		hint := cmplx.Sqrt(q0)
+		h := 1 / float64(panels)
+		for i := 0; i < panels; i++ {
+			for j := 0; j < nodes; j++ {
+				zz, dz := pth((float64(i) + rule.x[j]) * h)
+				r := cmplx.Sqrt(p.Q.Eval(zz))
+				if cmplx.Abs(r+hint) < cmplx.Abs(r-hint) {
+					r = -r
+				}
+				hint = r
+				sum += complex(rule.w[j]*h, 0) * r * dz
+				scale += rule.w[j] * h * cmplx.Abs(r*dz)
+			}
+		}
+		if panels > 2 && cmplx.Abs(sum-prev) <= tol*scale {
+			return sum, nil
+		}
+		prev = sum
+	}
+	return 0, fmt.Errorf("connect: integral of √Q up to %v did not converge", z)
+}
+
+// aboveS returns |Im ∫_lo^z √Q| along the straight segment from the
+// singularity lo to the singularity z above it, with the substitution
+// z(s) = lo + (z − lo)(1 − cos πs)/2 that makes the integrand smooth at
+// simple zeros and poles at both ends. The absolute value is taken because
+// the sheet of √Q past lo is not fixed; the farther singularity is the
+// weaker one on either sheet.
+func aboveS(p wkb.Problem, z, lo complex128, tol float64) (float64, error) {
+	d := z - lo
+	pth := func(s float64) (complex128, complex128) {
+		return lo + d*complex((1-math.Cos(math.Pi*s))/2, 0), d * complex(math.Pi*math.Sin(math.Pi*s)/2, 0)
+	}
+	z0, _ := pth(1.0 / 64)
+	r, err := integratePath(p, pth, cmplx.Sqrt(p.Q.Eval(z0)), 0, tol)
+	if err != nil {
+		return 0, err
+	}
+	return math.Abs(imag(r.val[0])), nil
+}
