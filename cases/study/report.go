@@ -114,10 +114,23 @@ type DegeneracyEntry struct {
 
 // ScanReport is a scattering scan.
 type ScanReport struct {
-	Over         string    `json:"over"`
-	Label        string    `json:"label"`
-	Rows         []ScanRow `json:"rows"`
-	Degeneracies []float64 `json:"degeneracies,omitempty"` // scan values where a Stokes line joins two turning points
+	Over         string           `json:"over"`
+	Label        string           `json:"label"`
+	Rows         []ScanRow        `json:"rows"`
+	Degeneracies []ScanDegeneracy `json:"degeneracies,omitempty"` // scan values where a Stokes line joins two turning points
+	// EverywhereDegenerate says a Stokes line joins the two turning points
+	// nearest the axis at every sampled scan value (as across any real barrier).
+	EverywhereDegenerate bool `json:"everywhere_degenerate,omitempty"`
+}
+
+// ScanDegeneracy is a scan value where a Stokes line joins the two turning
+// points nearest each other: Re ∫_{t1}^{t2} sqrt(Q) = 0.
+type ScanDegeneracy struct {
+	At  float64 `json:"at"`
+	Err Number  `json:"err"`
+	T1  Complex `json:"t1"`
+	T2  Complex `json:"t2"`
+	Gap Complex `json:"gap"`
 }
 
 // ScanRow is one scan point: WKB, numerics and their comparison.

@@ -1,8 +1,10 @@
 package study
 
 import (
+	"errors"
 	"fmt"
 	"math"
+	"math/cmplx"
 	"path/filepath"
 	"runtime"
 	"sort"
@@ -305,10 +307,29 @@ func runScan(c *cases.Case, opt *Options, rep *Report) *ScanReport {
 			}
 			return p.Q, res.Points, nil
 		}
-		if d, err := stokes.FindDegeneracy(family, vals[0], vals[len(vals)-1]); err == nil {
-			sr.Degeneracies = d
-		} else {
+		// Sample the scan no more finely than its own points: each sample
+		// costs a turning-point search.
+		n := min(len(vals)-1, 12)
+		crossings, err := stokes.ScanDegeneracy(family, vals[0], vals[len(vals)-1], n)
+		switch {
+		case errors.Is(err, stokes.ErrEverywhereDegenerate):
+			sr.EverywhereDegenerate = true
+		case err != nil:
 			rep.Warnings = append(rep.Warnings, fmt.Sprintf("degeneracy scan: %v", err))
+		}
+		for _, x := range crossings {
+			// A root where the nearest pair changes identity is a jump of
+			// Re Gap, not a zero: keep only true zeros.
+			if math.Abs(real(x.Gap)) > 1e-6*cmplx.Abs(x.Gap) {
+				continue
+			}
+			// A conjugate pair of a Q real on the axis is joined through
+			// the axis at every value (Schwarz reflection makes Gap purely
+			// imaginary): a sign change of Re Gap there is rounding.
+			if cmplx.Abs(x.T1-cmplx.Conj(x.T2)) <= 1e-8*cmplx.Abs(x.T1) {
+				continue
+			}
+			sr.Degeneracies = append(sr.Degeneracies, ScanDegeneracy{At: x.P, Err: Number(x.Err), T1: C(x.T1), T2: C(x.T2), Gap: C(x.Gap)})
 		}
 	}
 	if opt != nil && opt.FigureDir != "" {

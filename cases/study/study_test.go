@@ -13,8 +13,8 @@ import (
 func TestCompare(t *testing.T) {
 	for _, tc := range []struct {
 		wkb, errW, num, errN float64
-		agree               bool
-		reason              string
+		agree                bool
+		reason               string
 	}{
 		{1.0, 0.1, 1.05, 0.01, true, ""},
 		{1.0, 0.01, 1.05, 0.01, false, "differ"},

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"regexp"
 	"strings"
 	"text/tabwriter"
 
@@ -152,21 +153,46 @@ func writeScan(w io.Writer, s *study.ScanReport) {
 	}
 	tw.Flush()
 	for _, d := range s.Degeneracies {
-		fmt.Fprintf(w, "Stokes degeneracy (a Stokes line joins two turning points) near %s = %.6g\n", s.Label, d)
+		fmt.Fprintf(w, "Stokes degeneracy near %s = %.8g: a Stokes line joins the turning points %s and %s; first-order connection formulae change there\n",
+			s.Label, d.At, fmtC(d.T1), fmtC(d.T2))
 	}
-	seen := map[string]bool{}
+	if s.EverywhereDegenerate {
+		fmt.Fprintln(w, "a Stokes line joins the two turning points nearest the axis across the whole scan (as across any real barrier): the uniform connection is used throughout")
+	}
+	type group struct {
+		first  string
+		at     float64
+		points int
+	}
+	var groups []*group
+	byShape := map[string]*group{}
 	for _, r := range s.Rows {
 		if r.WKB == nil {
 			continue
 		}
+		seenHere := map[string]bool{}
 		for _, x := range r.WKB.Warnings {
-			if !seen[x] {
-				seen[x] = true
-				fmt.Fprintf(w, "warning (WKB, first at %s = %.6g): %s\n", s.Label, r.At, x)
+			// Warnings that differ only in their numbers are one kind.
+			shape := numberPattern.ReplaceAllString(x, "#")
+			g := byShape[shape]
+			if g == nil {
+				g = &group{first: x, at: r.At}
+				byShape[shape] = g
+				groups = append(groups, g)
+			}
+			if !seenHere[shape] {
+				seenHere[shape] = true
+				g.points++
 			}
 		}
 	}
+	for _, g := range groups {
+		fmt.Fprintf(w, "warning (WKB, at %d of %d scan points, first at %s = %.6g): %s\n", g.points, len(s.Rows), s.Label, g.at, g.first)
+	}
 }
+
+// numberPattern matches the numbers inside a message.
+var numberPattern = regexp.MustCompile(`[-+]?[0-9]*\.?[0-9]+([eE][-+]?[0-9]+)?`)
 
 func writeLevels(w io.Writer, l *study.LevelsReport) {
 	if l == nil {
