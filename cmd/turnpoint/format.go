@@ -99,27 +99,56 @@ func writePoints(w io.Writer, p *study.PointsReport) {
 	}
 }
 
-func writeStokes(w io.Writer, r *study.Report) {
+// writeStokes prints the Stokes geometry: every line when full, else one
+// line per turning point saying where its lines end.
+func writeStokes(w io.Writer, r *study.Report, full bool) {
 	s := r.Stokes
 	if s == nil {
 		return
 	}
 	fmt.Fprintf(w, "\nStokes geometry (%s)\n", r.Convention)
 	tw := newTable(w)
-	fmt.Fprintln(tw, "  from\tfamily\tstart angle\tends on\tend point")
-	for _, l := range s.Lines {
-		to := l.EndsOn
-		if l.To >= 0 {
-			to = fmt.Sprintf("%s #%d", l.EndsOn, l.To)
+	if full {
+		fmt.Fprintln(tw, "  from\tfamily\tstart angle\tends on\tend point")
+		for _, l := range s.Lines {
+			to := l.EndsOn
+			if l.To >= 0 {
+				to = fmt.Sprintf("%s #%d", l.EndsOn, l.To)
+			}
+			fmt.Fprintf(tw, "  #%d\t%s\t%s°\t%s\t%s\n", l.From, l.Family, fmtN(l.StartAngle, 4), to, fmtC(l.End))
 		}
-		fmt.Fprintf(tw, "  #%d\t%s\t%s°\t%s\t%s\n", l.From, l.Family, fmtN(l.StartAngle, 4), to, fmtC(l.End))
+	} else {
+		fmt.Fprintln(tw, "  from\tStokes lines end on\tanti-Stokes lines end on")
+		var order []int
+		ends := map[int]*[2][]string{}
+		for _, l := range s.Lines {
+			e := ends[l.From]
+			if e == nil {
+				e = &[2][]string{}
+				ends[l.From] = e
+				order = append(order, l.From)
+			}
+			to := l.EndsOn
+			if l.To >= 0 {
+				to = fmt.Sprintf("#%d", l.To)
+			}
+			k := 0
+			if l.Family != "Stokes" {
+				k = 1
+			}
+			e[k] = append(e[k], to)
+		}
+		for _, from := range order {
+			e := ends[from]
+			fmt.Fprintf(tw, "  #%d\t%s\t%s\n", from, strings.Join(e[0], ", "), strings.Join(e[1], ", "))
+		}
 	}
 	tw.Flush()
 	if len(s.Degeneracies) == 0 {
 		fmt.Fprintln(w, "no Stokes line joins two turning points")
 	}
 	for _, d := range s.Degeneracies {
-		fmt.Fprintf(w, "DEGENERACY: a Stokes line joins turning points #%d and #%d (integral of sqrt Q between them %s): first-order connection formulae change here; a uniform formula is used\n",
+		fmt.Fprintf(w, "DEGENERACY: a Stokes line joins turning points #%d and #%d (integral of sqrt Q between them %s): a first-order connection formula is not valid across it, so the scattering figures use the uniform (parabolic-cylinder) connection for such a pair\n",
 			d.From, d.To, fmtC(d.Gap))
 	}
 	for _, x := range s.Warnings {

@@ -78,7 +78,7 @@ func reportStatus(r *study.Report) error {
 func writeReport(w io.Writer, r *study.Report) {
 	writeHeader(w, r)
 	writePoints(w, r.Points)
-	writeStokes(w, r)
+	writeStokes(w, r, false)
 	writeScan(w, r.Scan)
 	writeLevels(w, r.Levels)
 	writeChecks(w, r)
@@ -283,7 +283,7 @@ func init() {
 				}
 				writeHeader(e.stdout, r)
 				writePoints(e.stdout, r.Points)
-				writeStokes(e.stdout, r)
+				writeStokes(e.stdout, r, what&study.Geometry != 0 && what&study.Scattering == 0)
 				writeScan(e.stdout, r.Scan)
 				writeLevels(e.stdout, r.Levels)
 				writeSummary(e.stdout, r)
