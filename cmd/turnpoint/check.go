@@ -214,8 +214,12 @@ func runCheck(e *env, args []string, opt checkOptions) error {
 			fmt.Fprintf(e.stdout, "  updated %s: %s %.10g -> %.10g\n", c.Where, c.Figure, c.Old, c.New)
 		}
 	}
-	fmt.Fprintf(e.stdout, "\n%d cases: %d passed, %d failed, %d could not be loaded (%.1fs)\n",
-		len(results), len(results)-failed-broken, failed, broken, time.Since(start).Seconds())
+	noun := "cases"
+	if len(results) == 1 {
+		noun = "case"
+	}
+	fmt.Fprintf(e.stdout, "\n%d %s: %d passed, %d failed, %d could not be loaded (%.1fs)\n",
+		len(results), noun, len(results)-failed-broken, failed, broken, time.Since(start).Seconds())
 	if opt.junit != "" {
 		if err := writeJUnit(opt.junit, results, time.Since(start)); err != nil {
 			return err
