@@ -148,8 +148,11 @@ func writeStokes(w io.Writer, r *study.Report, full bool) {
 		fmt.Fprintln(w, "no Stokes line joins two turning points")
 	}
 	for _, d := range s.Degeneracies {
-		fmt.Fprintf(w, "DEGENERACY: a Stokes line joins turning points #%d and #%d (integral of sqrt Q between them %s): a first-order connection formula is not valid across it, so the scattering figures use the uniform (parabolic-cylinder) connection for such a pair\n",
+		fmt.Fprintf(w, "DEGENERACY: a Stokes line joins turning points #%d and #%d (integral of sqrt Q between them %s)\n",
 			d.From, d.To, fmtC(d.Gap))
+	}
+	if len(s.Degeneracies) > 0 {
+		fmt.Fprintln(w, "  (across a degeneracy a first-order connection formula is not valid: scattering uses the uniform parabolic-cylinder connection for such a pair)")
 	}
 	for _, x := range s.Warnings {
 		fmt.Fprintf(w, "warning: %s\n", x)
@@ -165,7 +168,17 @@ func writeScan(w io.Writer, s *study.ScanReport) {
 	}
 	fmt.Fprintf(w, "\nscattering, wave incident from the left, R = |r|^2, T = |t|^2 flux-normalised; scan over %s\n", s.Label)
 	tw := newTable(w)
-	fmt.Fprintf(tw, "  %s\tR (WKB)\t\tR (numerical)\t\tdiff\tT (WKB)\t\tT (numerical)\t\tdiff\tverdict\tWKB formula\n", s.Label)
+	fmt.Fprintf(tw, "  %s\tR (WKB)\t\tR (numerical)\t\tdiff\tT (WKB)\t\tT (numerical)\t\tdiff\tverdict\tformula\n", s.Label)
+	var formulas []string
+	key := func(method string) string {
+		for i, f := range formulas {
+			if f == method {
+				return string(rune('A' + i%26))
+			}
+		}
+		formulas = append(formulas, method)
+		return string(rune('A' + (len(formulas)-1)%26))
+	}
 	for _, r := range s.Rows {
 		if r.WKB == nil || r.Numeric == nil {
 			fmt.Fprintf(tw, "  %.6g\tnot computed: %s\n", r.At, r.Error)
@@ -178,9 +191,15 @@ func writeScan(w io.Writer, s *study.ScanReport) {
 		fmt.Fprintf(tw, "  %.6g\t%.6g\t%s\t%.10g\t%s\t%.1e\t%.6g\t%s\t%.10g\t%s\t%.1e\t%s\t%s\n", r.At,
 			float64(r.WKB.R), fmtErr(r.WKB.ErrR), float64(r.Numeric.R), fmtErr(r.Numeric.ErrR), float64(r.R.RelDiff),
 			float64(r.WKB.T), fmtErr(r.WKB.ErrT), float64(r.Numeric.T), fmtErr(r.Numeric.ErrT), float64(r.T.RelDiff),
-			verdict, r.WKB.Method)
+			verdict, key(r.WKB.Method))
 	}
 	tw.Flush()
+	for i, f := range formulas {
+		fmt.Fprintf(w, "  formula %c: %s\n", 'A'+i%26, f)
+	}
+	if len(s.Rows) > 0 {
+		fmt.Fprintln(w, "  numerical check: "+numericMethods(s))
+	}
 	for _, d := range s.Degeneracies {
 		fmt.Fprintf(w, "Stokes degeneracy near %s = %.8g: a Stokes line joins the turning points %s and %s; first-order connection formulae change there\n",
 			s.Label, d.At, fmtC(d.T1), fmtC(d.T2))
@@ -298,4 +317,17 @@ func writeSummary(w io.Writer, r *study.Report) {
 		fmt.Fprintf(w, "  - %s\n", f)
 	}
 	fmt.Fprintf(w, "assumes: %s\n", strings.Join(r.Assumes, "; "))
+}
+
+// numericMethods lists the numerical methods used across a scan.
+func numericMethods(s *study.ScanReport) string {
+	var ms []string
+	seen := map[string]bool{}
+	for _, r := range s.Rows {
+		if r.Numeric != nil && !seen[r.Numeric.Method] {
+			seen[r.Numeric.Method] = true
+			ms = append(ms, r.Numeric.Method)
+		}
+	}
+	return strings.Join(ms, "; ")
 }
