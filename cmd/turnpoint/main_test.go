@@ -240,3 +240,30 @@ func BenchmarkCheckLibrary(b *testing.B) {
 		}
 	}
 }
+
+// TestRunOut runs a small bundled case with --out and --json and checks the
+// figures and the result file are written and the JSON has its stable keys.
+func TestRunOut(t *testing.T) {
+	if testing.Short() {
+		t.Skip("runs a full case")
+	}
+	dir := t.TempDir()
+	out, errOut, code := runCLI(t, "run", "--json", "--out", dir, "lib:harmonic-trap")
+	if code != 0 {
+		t.Fatalf("run: exit %d\n%s", code, errOut)
+	}
+	var rep map[string]any
+	if err := json.Unmarshal([]byte(out), &rep); err != nil {
+		t.Fatalf("run --json is not JSON: %v", err)
+	}
+	for _, key := range []string{"case", "form", "lambda", "convention", "turning_points", "levels", "checks", "summary", "assumptions"} {
+		if _, ok := rep[key]; !ok {
+			t.Errorf("JSON report lacks %q", key)
+		}
+	}
+	for _, name := range []string{"levels.svg", "stokes.svg", "result.json"} {
+		if fi, err := os.Stat(filepath.Join(dir, name)); err != nil || fi.Size() == 0 {
+			t.Errorf("--out did not write %s: %v", name, err)
+		}
+	}
+}
