@@ -35,21 +35,34 @@ outer:
 	return out
 }
 
-// setup computes the reference anchors and the barrier integral of e.
-func (e *element) setup(p wkb.Problem, a, b float64, others []complex128, K int, tol float64, res *Result) error {
+// setupAnchors computes the reference anchors of e. feet are the real feet
+// of the complex pairs composed beside it: the outer reference points of a
+// real barrier are kept between them and its turning points, so that the
+// anchors stay in order along the axis.
+func (e *element) setupAnchors(p wkb.Problem, a, b float64, others []complex128, feet []float64, K int, tol float64, res *Result) error {
 	lam := p.Lambda
 	warn := func(format string, args ...any) { res.Warnings = append(res.Warnings, fmt.Sprintf(format, args...)) }
-	t1, t2 := e.b.Left, e.b.Right
+	t1 := e.b.Left
 	if !e.b.Pair {
+		t2 := e.b.Right
 		x1, x2 := real(t1), real(t2)
 		for _, x := range []float64{x1, x2} {
 			ell := math.Pow(lam*cmplx.Abs(p.Q.Taylor(complex(x, 0), 1)[1]), -1.0/3)
 			if x-a < 3*ell || b-x < 3*ell {
-				warn("turning point %.6g lies within 3 Airy lengths (%.3g) of an end: the end waves are not yet WKB waves", x, ell)
+				warn("turning point %.6g lies within 3 Airy lengths (%.3g) of an end: the waves there are not yet WKB waves, so R, T and the phases may be off by more than their estimates", x, ell)
 			}
 		}
-		rho1 := 0.45 * math.Min(nearest(t1, others), x1-a)
-		rho2 := 0.45 * math.Min(nearest(t2, others), b-x2)
+		left, right := x1-a, b-x2
+		for _, f := range feet {
+			if f < x1 {
+				left = math.Min(left, x1-f)
+			}
+			if f > x2 {
+				right = math.Min(right, f-x2)
+			}
+		}
+		rho1 := 0.45 * math.Min(nearest(t1, others), left)
+		rho2 := 0.45 * math.Min(nearest(t2, others), right)
 		c1, c2 := x1-rho1, x2+rho2
 		fp1, err := finitePart(p, t1, complex(c1, 0), cmplx.Sqrt(p.Q.Eval(complex(c1, 0))), K, tol)
 		if err != nil {
@@ -61,42 +74,94 @@ func (e *element) setup(p wkb.Problem, a, b float64, others []complex128, K int,
 		}
 		e.left = anchor{z: t1, base: c1, g: fp1.val, gErr: fp1.err}
 		e.right = anchor{z: t2, base: c2, g: fp2.val, gErr: fp2.err}
-	} else {
-		x := real(t1)
-		rho := 0.45 * nearest(t1, others)
-		c := t1 - complex(0, rho)
-		r0 := cmplx.Sqrt(p.Q.Eval(complex(x, 0)))
-		vert, err := integratePath(p, segment(complex(x, 0), c), r0, K, tol)
-		if err != nil {
-			return err
-		}
-		fp, err := finitePart(p, t1, c, vert.root, K, tol)
-		if err != nil {
-			return err
-		}
-		g := make([]complex128, K+1)
-		ge := make([]float64, K+1)
-		for k := range g {
-			g[k] = vert.val[k] + fp.val[k]
-			ge[k] = vert.err[k] + fp.err[k]
-		}
-		e.left = anchor{z: t1, base: x, g: g, gErr: ge}
-		e.right = e.left
+		return nil
 	}
+	x := real(t1)
+	rho := 0.45 * nearest(t1, others)
+	c := t1 - complex(0, rho)
+	r0 := cmplx.Sqrt(p.Q.Eval(complex(x, 0)))
+	vert, err := integratePath(p, segment(complex(x, 0), c), r0, K, tol)
+	if err != nil {
+		return err
+	}
+	fp, err := finitePart(p, t1, c, vert.root, K, tol)
+	if err != nil {
+		return err
+	}
+	g := make([]complex128, K+1)
+	ge := make([]float64, K+1)
+	for k := range g {
+		g[k] = vert.val[k] + fp.val[k]
+		ge[k] = vert.err[k] + fp.err[k]
+	}
+	e.left = anchor{z: t1, base: x, g: g, gErr: ge}
+	e.right = e.left
+	return nil
+}
 
+// pairTheta returns the terms θ_{2k}, k = 0…n, of the barrier integral
+// of a complex pair t, t̄ with their quadrature errors, from the anchor of
+// e: the finite parts g_k = FP∫_x^t −iφ_{2k} dz from the foot x = Re t. The
+// segment from t̄ to t is the vertical through x, and for Q real on the axis
+// the integrand at z̄ is the conjugate of that at z, so the closed contour
+// round both turning points, twice FP∫_{t̄}^{t}, is 4i Im g_k and
+//
+//	θ_{2k} = −2 λ^(1−2k) Im g_k   (θ₀ = −2λS).
+//
+// This is the contour wkb.PairPhase integrates (an ellipse with foci t, t̄
+// round the same segment), at no further cost.
+func (e *element) pairTheta(lam float64, n int) (terms, quadErr []float64) {
+	terms = make([]float64, n+1)
+	quadErr = make([]float64, n+1)
+	for k := 0; k <= n; k++ {
+		f := 2 * math.Pow(lam, float64(1-2*k))
+		terms[k] = -f * imag(e.left.g[k])
+		quadErr[k] = f * e.left.gErr[k]
+	}
+	return terms, quadErr
+}
+
+// firstOrder sets the barrier integral of e to its leading order alone: for
+// a complex pair −2λS from its anchor (pairTheta), for a real barrier
+// λ∫_{x1}^{x2} √(−Q) dx by thetaReal at 64 and 128 nodes (their difference
+// is the quadrature error).
+func (e *element) firstOrder(p wkb.Problem) error {
+	if e.b.Pair {
+		e.thetaTerms, e.thetaQuad = e.pairTheta(p.Lambda, 0)
+		return nil
+	}
+	v64, v128 := thetaReal(p, real(e.b.Left), real(e.b.Right), 64), thetaReal(p, real(e.b.Left), real(e.b.Right), 128)
+	e.thetaTerms = []float64{v128}
+	e.thetaQuad = []float64{math.Abs(v128 - v64)}
+	return nil
+}
+
+// setupTheta computes the barrier integral θ of e to order 2K: for a real
+// barrier by wkb.PairPhase, for a complex pair from its anchor
+// (pairTheta). If PairPhase fails, θ is taken at leading order with a
+// warning (optimal truncation then stops the whole result there).
+func (e *element) setupTheta(p wkb.Problem, others []complex128, K int, tol float64, res *Result) error {
+	warn := func(format string, args ...any) { res.Warnings = append(res.Warnings, fmt.Sprintf(format, args...)) }
+	t1, t2 := e.b.Left, e.b.Right
+	e.weak = false
+	if e.b.Pair {
+		e.thetaTerms, e.thetaQuad = e.pairTheta(p.Lambda, len(e.left.g)-1)
+		return nil
+	}
 	ps, err := wkb.PairPhase(p, t1, t2, 2*K, &wkb.PhaseSettings{Others: without(others, t1, t2), Tol: tol})
 	if err == nil && ps.Status.Err() != nil {
-		warn("barrier integral at %.4g: %v", t1, ps.Status)
+		q := 0.0
+		for k, e := range ps.TermErr {
+			if math.IsNaN(e) || math.IsInf(e, 0) {
+				e = cmplx.Abs(ps.Terms[k]) // no estimate: the term's own size, as in thetaQuad
+			}
+			q = math.Max(q, e)
+		}
+		warn("the barrier integral θ of the barrier [%.6g, %.6g] is less accurate than asked (%v): its quadrature error, up to %.2g in θ, is counted in the error estimates", real(t1), real(t2), ps.Status, q)
 	}
 	if err != nil || len(ps.Terms) < 1 {
-		warn("higher-order barrier integral at %.4g failed (%v): first order only, its error estimate excludes the θ correction", t1, err)
-		th, qerr, err2 := e.firstOrderTheta(p, res)
-		if err2 != nil {
-			return err2
-		}
-		e.thetaTerms = []float64{th}
-		e.thetaQuad = []float64{qerr}
-		return nil
+		warn("the barrier integral θ of the barrier [%.6g, %.6g] could not be taken beyond leading order (%v): the result is at leading order and its error estimate lacks the θ correction of this barrier", real(t1), real(t2), err)
+		return e.firstOrder(p)
 	}
 	e.thetaTerms = make([]float64, len(ps.Terms))
 	e.thetaQuad = make([]float64, len(ps.Terms))
@@ -113,23 +178,6 @@ func (e *element) setup(p wkb.Problem, a, b float64, others []complex128, K int,
 		e.thetaQuad[k] = q
 	}
 	return nil
-}
-
-// firstOrderTheta returns θ₀ without wkb.PairPhase: for a real barrier
-// λ∫_{x1}^{x2} √(−Q) dx with x = x1 + (x2−x1)(1 − cos u)/2, which turns the
-// square-root end behaviour into an analytic integrand sin²u·(…), Legendre
-// rules of 64 and 128 nodes; for a complex pair −2λS.
-func (e *element) firstOrderTheta(p wkb.Problem, res *Result) (float64, float64, error) {
-	if e.b.Pair {
-		for _, sg := range res.Singular {
-			if sg.Point.Z == e.b.Left {
-				return -2 * p.Lambda * sg.S, 0, nil
-			}
-		}
-		return 0, 0, fmt.Errorf("connect: complex pair %v was not weighed", e.b.Left)
-	}
-	v64, v128 := thetaReal(p, real(e.b.Left), real(e.b.Right), 64), thetaReal(p, real(e.b.Left), real(e.b.Right), 128)
-	return v128, math.Abs(v128 - v64), nil
 }
 
 // thetaReal is λ∫_{x1}^{x2} √(−Q) dx by an n-point Legendre rule after the
@@ -159,17 +207,10 @@ type composer struct {
 // amplitudes returns r and t with the barrier integrals θ to order 2nθ and
 // the phases to order 2nφ; pert = 1 adds the quadrature errors to every
 // phase and θ (to measure their effect). The parabolic phase is
-//
-//	φ(ε) − Σ_{j≤nφ} c_j ε₀^{1−2j},   ε = −θ/π,  ε₀ = −θ₀/π,
-//
-// the subtracted terms (c_j those of special.ParabolicPhaseReduced) being the
-// ones the finite-part phases hold; they carry the geometric ε₀ of the
-// leading-order θ, as the finite parts do. This is derived at nφ = 1 for
-// the parabolic barrier (ParabolicBarrierOrder) and checked for
-// U/cosh²x, where taking ε instead of ε₀ leaves 50 times larger phase
-// errors near the top. naive = true takes ε in the subtraction
-// (ParabolicBarrierOrder itself), used only as an error estimate.
-func (c composer) amplitudes(nTheta, nPhase int, pert float64, naive bool) (r, t complex128) {
+// φ(ε) − S_nφ (parabolicBarrierSeries), ε = −θ/π, the subtracted series
+// being the part of φ's large-ε expansion the finite-part phases hold, to
+// the same order in 1/λ.
+func (c composer) amplitudes(nTheta, nPhase int, pert float64) (r, t complex128) {
 	m := Identity
 	for i, gap := range c.gaps {
 		A, B := c.anchors[2*i], c.anchors[2*i+1]
@@ -188,17 +229,17 @@ func (c composer) amplitudes(nTheta, nPhase int, pert float64, naive bool) (r, t
 			delta += math.Pow(c.lam, float64(1-2*k)) * (real(v) + pert*e)
 		}
 		m = m.Mul(Propagation(complex(delta, 0)))
-		if i < len(c.elems) {
+		if i < len(c.elems) && !c.elems[i].omit {
 			el := c.elems[i]
 			var th float64
 			for k := 0; k <= nTheta && k < len(el.thetaTerms); k++ {
 				th += el.thetaTerms[k] + pert*el.thetaQuad[k]
 			}
-			th0 := el.thetaTerms[0] + pert*el.thetaQuad[0]
-			if naive {
-				th0 = th
+			eps := make([]float64, 0, nPhase)
+			for k := 0; k < nPhase && k <= nTheta && k < len(el.thetaTerms); k++ {
+				eps = append(eps, -(el.thetaTerms[k]+pert*el.thetaQuad[k])/math.Pi)
 			}
-			m = m.Mul(parabolicBarrierRef(th, th0, nPhase))
+			m = m.Mul(parabolicBarrierSeries(th, eps, nPhase))
 		}
 	}
 	if c.terminal != nil {

@@ -8,6 +8,8 @@ import (
 
 	"gonum.org/v1/gonum/mathext"
 
+	"github.com/turnpoint/turnpoint/connect/direct"
+
 	"github.com/turnpoint/turnpoint/turning"
 	"github.com/turnpoint/turnpoint/wkb"
 	"github.com/turnpoint/turnpoint/wkb/jet"
@@ -295,9 +297,15 @@ func TestReciprocity(t *testing.T) {
 	if math.Abs(r1.R+r1.T-1) > 1e-13 {
 		t.Errorf("R + T − 1 = %.3g", r1.R+r1.T-1)
 	}
-	_, tt, _ := directAmplitudes(fw, a, b, 20000)
-	if d := math.Abs(r1.T - sq(tt)); d > r1.ErrT {
-		t.Errorf("T = %.8g, direct %.8g, |diff| %.3g > ErrT %.3g", r1.T, sq(tt), d, r1.ErrT)
+	// The reference is connect/direct (accurate to ~1e-12 relative, its
+	// own ErrT beside it): the RK4 of helpers_test.go at 20000 steps is off
+	// by 5e-4 relative here, above the WKB error.
+	n, err := direct.Scatter(fw, a, b, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if d := math.Abs(r1.T - n.T); d > r1.ErrT+n.ErrT {
+		t.Errorf("T = %.8g, direct %.8g, |diff| %.3g > ErrT %.3g + %.3g", r1.T, n.T, d, r1.ErrT, n.ErrT)
 	}
 }
 

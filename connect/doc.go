@@ -30,14 +30,38 @@
 // terms that are singular at a turning point are finite parts, computed as
 // half a contour integral round the turning point, and the barrier
 // integrals as closed contour integrals round the two turning points
-// (wkb.PairPhase). θ is taken to the order asked for (cut at its least
-// term); the phases to order 2 at most, where the parabolic phase φ(ε)
-// loses the first term 1/(24ε₀) of its large-ε series, which the finite
-// parts already hold (derived at ParabolicBarrierOrder; ε₀ from the
-// leading-order θ). The error estimate of every figure is computed from
-// the changes the next two θ orders and the next phase order make (a
-// geometric tail, times a stated safety factor 2), plus the effect of the
+// (wkb.PairPhase); for a complex pair t, t̄ that contour is twice the
+// finite-part integral up the vertical through Re t, so its θ terms come
+// from the pair's reference point at no extra cost. θ is taken to the order
+// asked for (cut at its least term), and the phases to the same order. The
+// parabolic phase φ(ε), ε = −θ/π, then loses the part S_n of its large-ε
+// series that the finite parts already hold: the series expanded in 1/λ
+// with ε = ε₀ + ε₂ + … and cut at the same order, S_1 = 1/(24ε₀) (derived
+// at ParabolicBarrierOrder), S_2 = S_1 − ε₂/(24ε₀²) + 7/(2880ε₀³) (checked
+// against direct integration; see parabolicBarrierSeries). Only the Airy
+// connection at a forbidden right end keeps its phases at order 2. The
+// error estimate of every figure is computed from the changes the next two
+// θ orders and the next phase order make (a geometric tail, and the phase
+// change, each times a stated safety factor 2), plus the effect of the
 // quadrature errors.
+//
+// # Which complex pairs are composed
+//
+// A complex pair whose coupling e^θ is far below the accuracy of the
+// figure contributes nothing visible: every pair is first composed at
+// leading order, its effect measured by leaving it out, and pairs are
+// refined to higher order, largest effect first, until the ones left at
+// leading order together move R, T and the phases by at most a tenth of
+// the other errors; their whole effect is then added to the error
+// estimates (Barrier.FirstOrder marks them).
+//
+// # Relative error estimates
+//
+// Every error estimate of an exponentially small R or T is relative to it:
+// it comes from the changes of |r|² and |t|² (products of matrix elements)
+// under the next orders, the quadrature errors and the neglected
+// singularities, plus a rounding of 1e-14 of the figure itself, never an
+// absolute floor.
 //
 // # Exponentially small reflection
 //
@@ -47,4 +71,10 @@
 // enters the composition through the same uniform barrier matrix with θ < 0
 // (Pokrovskii–Khalatnikov prefactor 1 far above the top); a dominant simple
 // pole gives an estimate whose prefactor is not verified (see Scatter).
+// Singularities not composed (poles, blocked points) enter the error
+// estimates with their weight exp(−2λS). A double pole of Q has no Stokes
+// jump of its own (its local solutions are pure powers): the zeros of Q
+// around it carry its share (for U/cosh²x the closed form of Landau &
+// Lifshitz §25 is reproduced with it left out), so it is left out, with a
+// warning only when no zero is listed within its height above the axis.
 package connect

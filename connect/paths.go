@@ -64,59 +64,108 @@ type pathResult struct {
 	root complex128   // branch of √Q at the end of the path
 }
 
-// integratePath integrates the even terms along pth with composite
-// Gauss–Legendre (16 nodes a panel), the branch of √Q continued from root0
-// at s = 0 node by node; the panels are doubled until every term changes by
-// less than tol relative to the scale of its integrand (at most 2¹⁰ panels).
+// integratePath integrates the even terms along pth by adaptive
+// Gauss–Legendre quadrature, the branch of √Q continued from root0 at
+// s = 0 node by node: [0, 1] is cut into 4 panels, and a panel whose 16-node
+// rule and the sum of the rules on its halves differ, in any term, by more
+// than tol relative to the panel's ∫|integrand| is halved again (to panels
+// of 2⁻²⁰ at most); the halves' sum is kept and the difference is the
+// error estimate. Near a turning point the higher terms are peaked at one
+// end, where this refines, and nowhere else.
 func integratePath(p wkb.Problem, pth path, root0 complex128, K int, tol float64) (*pathResult, error) {
-	const nodes = 16
-	rule := legendre(nodes)
-	var prev *pathResult
-	for panels := 2; panels <= 1<<10; panels *= 2 {
-		cur := &pathResult{val: make([]complex128, K+1), err: make([]float64, K+1)}
-		scale := make([]float64, K+1)
-		hint := root0
-		h := 1 / float64(panels)
-		for i := 0; i < panels; i++ {
-			for j := 0; j < nodes; j++ {
-				s := (float64(i) + rule.x[j]) * h
-				z, dz := pth(s)
-				v, r := terms(p, z, hint, K)
-				hint = r
-				for k := range v {
-					f := v[k] * dz
-					if cmplx.IsNaN(f) || cmplx.IsInf(f) {
-						return nil, fmt.Errorf("connect: WKB integrand not finite at %v", z)
-					}
-					cur.val[k] += complex(rule.w[j]*h, 0) * f
-					scale[k] += rule.w[j] * h * cmplx.Abs(f)
-				}
-			}
+	in := &pathIntegrator{p: p, pth: pth, K: K, tol: tol, rule: legendre(16)}
+	out := &pathResult{val: make([]complex128, K+1), err: make([]float64, K+1)}
+	hint := root0
+	const start = 4
+	for i := 0; i < start; i++ {
+		s0, s1 := float64(i)/start, float64(i+1)/start
+		whole, h, err := in.panel(s0, s1, hint)
+		if err != nil {
+			return nil, err
 		}
-		cur.root = hint
-		if prev != nil {
-			ok := true
-			for k := range cur.val {
-				cur.err[k] = cmplx.Abs(cur.val[k] - prev.val[k])
-				if cur.err[k] > tol*scale[k]+1e-300 {
-					ok = false
-				}
-			}
-			if ok {
-				return cur, nil
-			}
+		h, err = in.refine(s0, s1, whole, hint, 0, out)
+		if err != nil {
+			return nil, err
 		}
-		prev = cur
+		hint = h
 	}
-	return nil, fmt.Errorf("connect: path quadrature did not converge in %d panels (change %.3g)", 1<<10, maxf(prev.err))
+	out.root = hint
+	return out, nil
 }
 
-func maxf(v []float64) float64 {
-	m := 0.0
-	for _, x := range v {
-		m = math.Max(m, x)
+// pathIntegrator holds the state of integratePath.
+type pathIntegrator struct {
+	p    wkb.Problem
+	pth  path
+	K    int
+	tol  float64
+	rule glRule
+}
+
+// panelSum is the 16-node rule on one panel, per term, with ∫|integrand|.
+type panelSum struct {
+	val   []complex128
+	scale []float64
+}
+
+// panel applies the rule on [s0, s1], continuing the branch from hint, and
+// returns the sums and the root at the last node.
+func (in *pathIntegrator) panel(s0, s1 float64, hint complex128) (panelSum, complex128, error) {
+	ps := panelSum{val: make([]complex128, in.K+1), scale: make([]float64, in.K+1)}
+	h := s1 - s0
+	for j := range in.rule.x {
+		z, dz := in.pth(s0 + in.rule.x[j]*h)
+		v, r := terms(in.p, z, hint, in.K)
+		hint = r
+		w := in.rule.w[j] * h
+		for k := range v {
+			f := v[k] * dz
+			if cmplx.IsNaN(f) || cmplx.IsInf(f) {
+				return ps, hint, fmt.Errorf("connect: WKB integrand not finite at %v", z)
+			}
+			ps.val[k] += complex(w, 0) * f
+			ps.scale[k] += w * cmplx.Abs(f)
+		}
 	}
-	return m
+	return ps, hint, nil
+}
+
+// refine compares the rule on [s0, s1] (whole) with the rules on its
+// halves and adds the accepted sums to out, recursing where they differ;
+// hint is the root at s0. It returns the root at s1.
+func (in *pathIntegrator) refine(s0, s1 float64, whole panelSum, hint complex128, depth int, out *pathResult) (complex128, error) {
+	m := (s0 + s1) / 2
+	left, hm, err := in.panel(s0, m, hint)
+	if err != nil {
+		return hint, err
+	}
+	right, h1, err := in.panel(m, s1, hm)
+	if err != nil {
+		return hint, err
+	}
+	ok := true
+	change := 0.0
+	for k := range whole.val {
+		d := cmplx.Abs(left.val[k] + right.val[k] - whole.val[k])
+		change = math.Max(change, d)
+		if d > in.tol*(left.scale[k]+right.scale[k])+1e-300 {
+			ok = false
+		}
+	}
+	if ok {
+		for k := range whole.val {
+			out.val[k] += left.val[k] + right.val[k]
+			out.err[k] += cmplx.Abs(left.val[k] + right.val[k] - whole.val[k])
+		}
+		return h1, nil
+	}
+	if depth >= 18 {
+		return hint, fmt.Errorf("connect: path quadrature did not converge on panels of width %.3g (change %.3g)", s1-s0, change)
+	}
+	if hm, err = in.refine(s0, m, left, hint, depth+1, out); err != nil {
+		return hint, err
+	}
+	return in.refine(m, s1, right, hm, depth+1, out)
 }
 
 // segment is the straight path from z0 to z1.

@@ -14,8 +14,9 @@ import (
 // Settings controls Scatter. A nil *Settings means all defaults.
 type Settings struct {
 	// MaxOrder is the highest even order 2N of the Riccati terms included in
-	// the barrier integrals θ (terms of size λ^(1−2N)); the phases take
-	// min(2N, 2). Zero means 2, the first correction to leading-order WKB; a
+	// the barrier integrals θ (terms of size λ^(1−2N)) and in the phases
+	// (order 2 at most at a forbidden right end). Zero means 2, the first
+	// correction to leading-order WKB; 4 is often much more accurate; a
 	// negative value means 0 (leading order only). The orders 2N+2 and 2N+4
 	// of θ and the next phase order are computed for the error estimate,
 	// and θ is cut earlier at its least term.
@@ -33,6 +34,11 @@ type Barrier struct {
 	Theta       float64    // barrier integral θ with the included higher-order terms
 	Terms       []float64  // θ_{2k} = λ^(1−2k) × order-2k term, k = 0…N+2 (the last two make the error estimate)
 	ThetaErr    float64    // error estimate of Theta: first excluded term plus quadrature error
+	// FirstOrder marks a complex pair composed at leading order only
+	// (Theta = −2λS, Terms of length 1): its whole effect on R, T and the
+	// phases is below a tenth of their other errors and is added to the
+	// error estimates instead of being refined (see Scatter).
+	FirstOrder bool
 }
 
 // Singularity is a complex zero or pole of Q weighed for its share of the
@@ -49,10 +55,10 @@ type Singularity struct {
 type Result struct {
 	R, T        float64    // reflection and transmission coefficients, R + T = 1
 	Refl, Trans complex128 // amplitudes r, t (package comment: phases relative to a and b)
-	ErrR, ErrT  float64    // error estimates (next-order term, quadrature, neglected singularities)
+	ErrR, ErrT  float64    // error estimates, relative to R and T (next-order term, quadrature, weak pairs, neglected singularities, rounding 1e-14)
 	ErrPhase    float64    // error estimate of arg r and arg t in radians (next-order term, quadrature)
 	Method      string     // the formula that produced R and T
-	Order       int        // highest even Riccati order 2N included in θ (phases: min(2N, 2))
+	Order       int        // highest even Riccati order 2N included in θ and the phases
 	// Dominant is the complex singularity that governs the reflection when
 	// no real turning point lies in (a, b); nil otherwise.
 	Dominant *turning.Point
@@ -67,6 +73,8 @@ type element struct {
 	left, right anchor
 	thetaTerms  []float64
 	thetaQuad   []float64 // quadrature error of each term
+	weak        bool      // complex pair composed at leading order, its effect counted as error
+	omit        bool      // left out of the composition (to measure its effect)
 }
 
 // anchor is a reference point of the coefficient vectors: an interval end
@@ -97,6 +105,10 @@ type anchor struct {
 //
 // The result is taken to order Settings.MaxOrder, or less where the series
 // of amplitude changes stops decreasing (least term; a warning says so).
+// Complex pairs whose effect on R, T and the phases is below a tenth of the
+// other errors are composed at leading order only, their whole effect added
+// to the error estimates (see the package comment); no warning is given
+// for them, since they do not change the figures.
 //
 // Q must be positive at a; Scatter returns an error otherwise, and if the
 // signs of Q on the axis do not match the listed real turning points. If Q
@@ -145,7 +157,7 @@ func Scatter(p wkb.Problem, a, b float64, points []turning.Point, s *Settings) (
 			return nil, fmt.Errorf("connect: Q(%g) = %v is not real: complex Q on the axis is not supported", x, q[0])
 		}
 		if eta := cmplx.Abs(q[1]) / (lam * math.Pow(math.Abs(real(q[0])), 1.5)); eta > 0.2 {
-			warn("λ·(length scale) small at x = %g: |Q′|/(λQ^(3/2)) = %.2g, WKB waves at the end are inaccurate", x, eta)
+			warn("λ·(length scale) small at x = %g: |Q′|/(λQ^(3/2)) = %.2g, the waves at the end are far from WKB waves, so R, T and their estimates are unreliable", x, eta)
 		}
 	}
 
@@ -183,7 +195,7 @@ func Scatter(p wkb.Problem, a, b float64, points []turning.Point, s *Settings) (
 			pt.Z = cmplx.Conj(z)
 		}
 		if pt.Kind == turning.Coalescing && real(pt.Z) > a && real(pt.Z) < b && imag(pt.Z) < 0.05*scale {
-			warn("coalescing zeros of Q near the axis at %.4g: the connection formulae are not uniform there", pt.Z)
+			warn("coalescing zeros of Q near the axis at %.4g: the connection formulae are not uniform near a coalescence, so the figures may be off by more than their estimates", pt.Z)
 		}
 		upper = append(upper, pt)
 	}
@@ -238,16 +250,29 @@ func Scatter(p wkb.Problem, a, b float64, points []turning.Point, s *Settings) (
 			res.Singular = append(res.Singular, sg)
 			continue
 		}
-		if pt.Order < -1 || pt.Order > 2 {
-			warn("singularity of order %d at %.4g not weighed: no local connection known", pt.Order, pt.Z)
-			continue
-		}
 		if q := real(p.Q.Eval(complex(x, 0))); !(q > 1e-8*real(qa)) {
-			continue // foot in a forbidden region or on a real turning point
+			continue // foot in a forbidden region or on a real turning point: part of that barrier's connection
+		}
+		switch {
+		case pt.Order == -2:
+			// No Stokes jump of its own (its local solutions are pure powers
+			// of z − z₀): the zeros of Q around it carry its share of the
+			// reflection (checked for Q = 1 + β/(x²+1)², TestDoublePole). Only
+			// a double pole with no listed zero near it is out of reach.
+			if !zeroNear(pt.Z, upper, imag(pt.Z)) {
+				warn("double pole of Q at %.4g with no zero of Q listed within %.3g of it: left out of the reflection (it has no Stokes jump of its own), its share through zeros outside the search box is neither in the figure nor in its error estimate", pt.Z, imag(pt.Z))
+			}
+			continue
+		case pt.Order < -2:
+			warn("pole of Q of order %d at %.4g above an allowed stretch of the axis: no connection formula for it, its share of the reflection is neither in the figure nor in its error estimate", -pt.Order, pt.Z)
+			continue
+		case pt.Order > 2:
+			warn("zero of Q of order %d at %.4g above an allowed stretch of the axis: no connection formula for it, its share of the reflection is neither in the figure nor in its error estimate", pt.Order, pt.Z)
+			continue
 		}
 		w, err := verticalS(p, pt.Z, set.Tol)
 		if err != nil {
-			warn("singularity at %.4g not weighed: %v", pt.Z, err)
+			warn("singularity at %.4g not weighed (%v): its share of the reflection is neither in the figure nor in its error estimate", pt.Z, err)
 			continue
 		}
 		sg.S = imag(w)
@@ -270,33 +295,27 @@ func Scatter(p wkb.Problem, a, b float64, points []turning.Point, s *Settings) (
 	sort.Slice(elems, func(i, j int) bool { return real(elems[i].b.Left) < real(elems[j].b.Left) })
 
 	K := N + 2 // orders computed: 0 … 2K; the two beyond 2N give the error estimate
+	var feet []float64
 	for _, e := range elems {
-		if err := e.setup(p, a, b, others, K, set.Tol, res); err != nil {
-			return nil, err
+		if e.b.Pair {
+			feet = append(feet, real(e.b.Left))
 		}
 	}
-	// Optimal truncation: the least term τ_L of the corrections
-	// τ_k = θ_{2k}, k ≥ 1 (θ₀ itself may vanish at a barrier top) is the
-	// first one not larger than its successor; the sum stops before it, so
-	// that it and the next one give the error estimate.
-	nInc := N
 	for _, e := range elems {
-		L := len(e.thetaTerms) - 1
-		for k := 1; k+1 < len(e.thetaTerms); k++ {
-			// Terms at the level of rounding or quadrature error are a
-			// converged series, not a least term.
-			negl := 10*e.thetaQuad[k+1] + 1e-13*math.Max(1, math.Abs(e.thetaTerms[0]))
-			if a := math.Abs(e.thetaTerms[k+1]); a >= math.Abs(e.thetaTerms[k]) && a > negl {
-				L = k
-				break
-			}
+		if err := e.setupAnchors(p, a, b, others, feet, K, set.Tol, res); err != nil {
+			return nil, err
 		}
-		if L-1 < nInc {
-			nInc = L - 1
-			if nInc < 0 {
-				nInc = 0
+		if e.b.Pair {
+			// Complex pairs start at leading order; Scatter refines the
+			// ones whose effect matters below.
+			e.weak = true
+			if err := e.firstOrder(p); err != nil {
+				return nil, err
 			}
-			warn("asymptotic series of θ at %.4g has its least term at order %d: truncated at order %d", e.b.Left, 2*L, 2*nInc)
+			continue
+		}
+		if err := e.setupTheta(p, others, K, set.Tol, res); err != nil {
+			return nil, err
 		}
 	}
 
@@ -341,64 +360,54 @@ func Scatter(p wkb.Problem, a, b float64, points []turning.Point, s *Settings) (
 		}
 		gaps = append(gaps, pr)
 	}
-
 	comp := composer{lam: lam, anchors: anchors, gaps: gaps, elems: elems, terminal: terminal}
-	// θ is taken to order 2·nInc (its least term); the phases to order
-	// 2·min(nInc, 1): beyond λ^(−1) the finite-part phases near a barrier
-	// top need cross terms with θ₂ that are not derived here, so the
-	// phase of order 4 only serves as the (conservative) phase error.
-	nPh := nInc
-	if nPh > 1 {
-		nPh = 1
+
+	// Which complex pairs matter. Every pair starts at leading order; its
+	// effect on the result is measured by leaving it out of the
+	// composition. While the weak pairs together move R, T or the phases by
+	// more than a tenth of the error estimate of the rest, the one with the
+	// largest effect is refined to higher order (wkb.PairPhase). The
+	// effects of the pairs left at leading order (their coupling e^θ is
+	// below the accuracy of the figure) are added to the error estimates.
+	var ev *evaluation
+	for {
+		var err error
+		ev, err = comp.evaluate(N, K)
+		if err != nil {
+			return nil, err
+		}
+		var sumW effect
+		best, bestScore := -1, 0.0
+		for i, e := range elems {
+			if !e.weak {
+				continue
+			}
+			d := comp.effect(i, ev)
+			sumW = sumW.add(d)
+			if sc := d.score(ev); sc > bestScore {
+				best, bestScore = i, sc
+			}
+		}
+		if best < 0 || (sumW.R <= 0.1*ev.errR && sumW.T <= 0.1*ev.errT && sumW.Phase <= 0.1*ev.errPh) {
+			ev.errR += sumW.R
+			ev.errT += sumW.T
+			ev.errPh += sumW.Phase
+			break
+		}
+		if err := elems[best].setupTheta(p, others, K, set.Tol, res); err != nil {
+			return nil, err
+		}
 	}
-	r, t := comp.amplitudes(nInc, nPh, 0, false)
-	if bad(r) || bad(t) {
-		return nil, fmt.Errorf("connect: connection amplitudes not finite (r = %v, t = %v)", r, t)
-	}
+	nInc := ev.nInc
+	res.Warnings = append(res.Warnings, ev.warns...)
+	r, t := ev.r, ev.t
 	res.Order = 2 * nInc
 	res.Refl, res.Trans = r, t
 	res.R, res.T = sq(r), sq(t)
-	dph := func(x, y complex128) float64 {
-		if y == 0 || x == 0 || bad(x) {
-			return 0
-		}
-		return cmplx.Phase(x / y)
-	}
-	// Error of R and T: the changes the next two θ orders make, the tail
-	// beyond bounded as a geometric series (see tail); the change from the
-	// next phase order (it moves resonances of several barriers); the change
-	// when every quadrature error is added; the rounding of R and T.
-	var th [3]struct{ r, t complex128 }
-	for k := range th {
-		n := nInc + k
-		if n > K {
-			n = K
-		}
-		th[k].r, th[k].t = comp.amplitudes(n, nPh, 0, false)
-		if bad(th[k].r) || bad(th[k].t) {
-			return nil, fmt.Errorf("connect: amplitudes at θ order %d not finite", 2*n)
-		}
-	}
-	rq, tq := comp.amplitudes(nInc, nPh, 1, false)
-	rph, tph := comp.amplitudes(nInc, nPh+1, 0, true)
-	if bad(rph) || bad(tph) {
-		rph, tph = r, t
-		warn("the next phase order is not finite: the phase error estimate excludes it")
-	}
-	errOf := func(f func(r, t complex128) float64) float64 {
-		e := tail(f(th[1].r, th[1].t)-f(th[0].r, th[0].t), f(th[2].r, th[2].t)-f(th[1].r, th[1].t))
-		return e + math.Abs(f(rph, tph)-f(r, t)) + math.Abs(f(rq, tq)-f(r, t))
-	}
-	res.ErrR = errOf(func(r, _ complex128) float64 { return sq(r) }) + 1e-14*res.R
-	res.ErrT = errOf(func(_, t complex128) float64 { return sq(t) }) + 1e-15
-	res.ErrPhase = math.Max(2*math.Abs(dph(rph, r))+math.Abs(dph(rq, r)), 2*math.Abs(dph(tph, t))+math.Abs(dph(tq, t))) +
-		math.Max(math.Abs(dph(th[1].r, r)), math.Abs(dph(th[1].t, t))) + 1e-14
-	if nInc == 0 {
-		// Leading order: the phase error is the change the first correction makes.
-		res.ErrPhase += math.Max(math.Abs(dph(th[1].r, r)), math.Abs(dph(th[1].t, t)))
-	}
+	res.ErrR, res.ErrT, res.ErrPhase = ev.errR, ev.errT, ev.errPh
 	for _, e := range elems {
 		e.b.Terms = e.thetaTerms
+		e.b.FirstOrder = e.weak
 		e.b.Theta = 0
 		for k := 0; k <= nInc && k < len(e.thetaTerms); k++ {
 			e.b.Theta += e.thetaTerms[k]
@@ -412,7 +421,15 @@ func Scatter(p wkb.Problem, a, b float64, points []turning.Point, s *Settings) (
 		res.Barriers = append(res.Barriers, e.b)
 	}
 
-	nReal, nPair := len(real1)/2, len(elems)-len(real1)/2
+	nReal, nPair, nWeak := len(real1)/2, 0, 0
+	for _, e := range elems {
+		switch {
+		case e.b.Pair && e.weak:
+			nWeak++
+		case e.b.Pair:
+			nPair++
+		}
+	}
 	switch {
 	case closedRight:
 		leak := math.Exp(-2 * thetaEnd(p, lone, b))
@@ -428,7 +445,7 @@ func Scatter(p wkb.Problem, a, b float64, points []turning.Point, s *Settings) (
 			res.Method = fmt.Sprintf("uniform parabolic connections composed, %d barriers", nReal)
 		}
 		if nPair > 0 {
-			res.Method += fmt.Sprintf(" and %d complex pairs", nPair)
+			res.Method += fmt.Sprintf(" and %s", pairs(nPair, "complex pair"))
 		}
 	case len(res.Singular) == 0:
 		res.Method = "no turning point or singularity near the axis"
@@ -437,8 +454,10 @@ func Scatter(p wkb.Problem, a, b float64, points []turning.Point, s *Settings) (
 	default:
 		d := res.Singular[0] // never blocked: a blocked one has S above its blocker
 		if len(res.Singular) > 1 {
-			if d2 := res.Singular[1]; lam*(d2.S-d.S) < 1 {
-				warn("the singularities at %.4g and %.4g have nearly equal weight (λΔS = %.2g) and interfere: the one-singularity estimate is not uniform here", d.Point.Z, d2.Point.Z, lam*(d2.S-d.S))
+			// Two composed pairs interfere in the composition itself; the
+			// warning is for an estimate from one singularity.
+			if d2 := res.Singular[1]; lam*(d2.S-d.S) < 1 && !(d.Point.Order == 1 && d2.Point.Order == 1 && !d2.blocked) {
+				warn("the singularities at %.4g and %.4g have nearly equal weight (λΔS = %.2g) and interfere: the estimate from one of them alone may be off by a factor of order 2", d.Point.Z, d2.Point.Z, lam*(d2.S-d.S))
 			}
 		}
 		pt := d.Point
@@ -454,7 +473,15 @@ func Scatter(p wkb.Problem, a, b float64, points []turning.Point, s *Settings) (
 			}
 		}
 	}
-	// Singularities not in the composition add reflection of their own.
+	if nWeak > 0 {
+		res.Method += fmt.Sprintf(" (and %s at leading order, their effect in the error)", pairs(nWeak, "weak complex pair"))
+	}
+	// Singularities not in the composition add reflection of their own, of
+	// amplitude ρ = Prefactor·e^{−2λS}: |δR| ≤ 2ρ√R + ρ². R + T = 1 makes
+	// |δT| = |δR|; with at most one barrier (no cavity to resonate in) a
+	// reflection ρ beside it changes t by the relative factor 1/(1 − ρ r′)
+	// at most, |r′| ≤ 1, so |δT| ≤ Tρ(2 − ρ)/(1 − ρ)² as well, which is the
+	// bound where T is exponentially small.
 	if !closedRight && (res.Dominant != nil || nReal > 0) {
 		for _, sg := range res.Singular {
 			if (sg.Point.Order == 1 && !sg.blocked) || (res.Dominant != nil && sg.Point.Z == res.Dominant.Z) {
@@ -466,6 +493,9 @@ func Scatter(p wkb.Problem, a, b float64, points []turning.Point, s *Settings) (
 			}
 			ra := pf * math.Exp(-2*lam*sg.S)
 			d := ra*ra + 2*ra*math.Sqrt(res.R)
+			if nReal <= 1 && ra < 0.5 {
+				d = math.Min(d, res.T*ra*(2-ra)/((1-ra)*(1-ra)))
+			}
 			res.ErrR += d
 			res.ErrT += d
 		}
@@ -486,6 +516,14 @@ func tail(d1, d2 float64) float64 {
 	return 2 * (a1 + a2/(1-a2/a1))
 }
 
+// pairs returns "n what" with the plural s when n ≠ 1.
+func pairs(n int, what string) string {
+	if n == 1 {
+		return "1 " + what
+	}
+	return fmt.Sprintf("%d %ss", n, what)
+}
+
 func bad(z complex128) bool { return cmplx.IsNaN(z) || cmplx.IsInf(z) }
 
 func sq(z complex128) float64 { return real(z)*real(z) + imag(z)*imag(z) }
@@ -501,6 +539,16 @@ func prefactor(order int) float64 {
 		return math.NaN()
 	}
 	return 2 * math.Abs(math.Cos(math.Pi/(m+2)))
+}
+
+// zeroNear reports whether a simple zero of Q among pts lies within r of z.
+func zeroNear(z complex128, pts []turning.Point, r float64) bool {
+	for _, q := range pts {
+		if q.Order == 1 && q.Z != z && cmplx.Abs(q.Z-z) < r {
+			return true
+		}
+	}
+	return false
 }
 
 // blockedBy returns the highest listed singularity below z within 5% of

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"math/cmplx"
+	"sync"
 
 	"github.com/turnpoint/turnpoint/turning"
 	"github.com/turnpoint/turnpoint/wkb"
@@ -41,42 +42,22 @@ func scatterTop(p wkb.Problem, a, b float64, points []turning.Point, idx int, se
 		return nil, fmt.Errorf("connect: double zero of Q at x = %.6g is not a barrier top (Q″/2 = %.4g): no connection formula for it", real(t), q2)
 	}
 	d0 := 0.1 * math.Sqrt(q2) / p.Lambda
+	// The four shifted problems are independent: they run concurrently.
 	var res [4]*Result
+	var errs [4]error
+	var wg sync.WaitGroup
 	for k, d := range []float64{-d0, d0, -2 * d0, 2 * d0} {
-		ps := p
-		ps.Q = shifted{q: p.Q, delta: complex(d, 0)}
-		pts := make([]turning.Point, 0, len(points)+1)
-		for j, pt := range points {
-			if j != idx {
-				pts = append(pts, pt)
-			}
-		}
-		h := cmplx.Sqrt(complex(-d/q2, 0))
-		for _, z0 := range []complex128{t - h, t + h} {
-			z := z0
-			for it := 0; it < 50; it++ {
-				s := ps.Q.Taylor(z, 1)
-				step := s[0] / s[1]
-				z -= step
-				if cmplx.Abs(step) < 1e-15*(1+cmplx.Abs(z)) {
-					break
-				}
-			}
-			if r := cmplx.Abs(ps.Q.Eval(z)); !(r < 1e-10*(1+cmplx.Abs(p.Q.Eval(complex(a, 0))))) {
-				return nil, fmt.Errorf("connect: splitting the double zero at %.6g: Newton residual %.3g", real(t), r)
-			}
-			kind := turning.ComplexPair
-			if d < 0 {
-				z = complex(real(z), 0)
-				kind = turning.RealSimple
-			}
-			pts = append(pts, turning.Point{Z: z, Order: 1, Kind: kind})
-		}
-		r, err := Scatter(ps, a, b, pts, set)
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			res[k], errs[k] = scatterShifted(p, a, b, points, idx, t, q2, d, set)
+		}()
+	}
+	wg.Wait()
+	for _, err := range errs {
 		if err != nil {
 			return nil, err
 		}
-		res[k] = r
 	}
 	avg := func(i, j int, f func(*Result) complex128) complex128 { return (f(res[i]) + f(res[j])) / 2 }
 	extra := func(f func(*Result) complex128) (complex128, float64) {
@@ -107,6 +88,41 @@ func scatterTop(p wkb.Problem, a, b float64, points []turning.Point, idx int, se
 	out.Method = "uniform parabolic connection at the barrier top (double zero split by ±δ and extrapolated)"
 	out.Barriers = nil
 	out.Warnings = append(append([]string(nil), res[0].Warnings...),
-		fmt.Sprintf("double zero of Q at x = %.6g (barrier top): result extrapolated from Q ± %.3g", real(t), d0))
+		fmt.Sprintf("energy at the top of the barrier at x = %.6g (a double zero of Q): R and T extrapolated from Q shifted by ±%.3g and ±%.3g, the extrapolation change is in the error estimate", real(t), d0, 2*d0))
 	return &out, nil
+}
+
+// scatterShifted is Scatter for Q + d, the double zero points[idx] at t
+// (Q″(t)/2 = q2) replaced by the two simple zeros it splits into.
+func scatterShifted(p wkb.Problem, a, b float64, points []turning.Point, idx int, t complex128, q2, d float64, set *Settings) (*Result, error) {
+	ps := p
+	ps.Q = shifted{q: p.Q, delta: complex(d, 0)}
+	pts := make([]turning.Point, 0, len(points)+1)
+	for j, pt := range points {
+		if j != idx {
+			pts = append(pts, pt)
+		}
+	}
+	h := cmplx.Sqrt(complex(-d/q2, 0))
+	for _, z0 := range []complex128{t - h, t + h} {
+		z := z0
+		for it := 0; it < 50; it++ {
+			s := ps.Q.Taylor(z, 1)
+			step := s[0] / s[1]
+			z -= step
+			if cmplx.Abs(step) < 1e-15*(1+cmplx.Abs(z)) {
+				break
+			}
+		}
+		if r := cmplx.Abs(ps.Q.Eval(z)); !(r < 1e-10*(1+cmplx.Abs(p.Q.Eval(complex(a, 0))))) {
+			return nil, fmt.Errorf("connect: splitting the double zero at %.6g: Newton residual %.3g", real(t), r)
+		}
+		kind := turning.ComplexPair
+		if d < 0 {
+			z = complex(real(z), 0)
+			kind = turning.RealSimple
+		}
+		pts = append(pts, turning.Point{Z: z, Order: 1, Kind: kind})
+	}
+	return Scatter(ps, a, b, pts, set)
 }

@@ -233,7 +233,7 @@ func scatterAt(c *cases.Case, v float64, base bool) ScanRow {
 	} else {
 		pts = res.Points
 	}
-	if w, err := connect.Scatter(p, a, b, pts, nil); err != nil {
+	if w, err := connect.Scatter(p, a, b, pts, &connect.Settings{MaxOrder: scatterOrder}); err != nil {
 		row.Error = joinErr(row.Error, fmt.Sprintf("wkb: %v", err))
 	} else {
 		amp := &Amplitude{R: Number(w.R), T: Number(w.T), ErrR: Number(w.ErrR), ErrT: Number(w.ErrT),
@@ -499,3 +499,8 @@ func uniqueSorted(xs []int) []int {
 	}
 	return out
 }
+
+// scatterOrder is the WKB order of the scattering figures: the barrier
+// integrals θ and the connection phases to order 4 in 1/λ, each truncated
+// earlier at its least term.
+const scatterOrder = 4

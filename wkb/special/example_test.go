@@ -26,3 +26,13 @@ func ExampleParabolicPhase() {
 	// φ(10) = 0.004169
 	// 1/(24·10) = 0.004167
 }
+
+func ExampleParabolicPhaseCoeff() {
+	// φ(ε) ~ c₁/ε + c₂/ε³ + c₃/ε⁵ + …: the first coefficients and the series at ε = 10.
+	c1, c2, c3 := special.ParabolicPhaseCoeff(1), special.ParabolicPhaseCoeff(2), special.ParabolicPhaseCoeff(3)
+	fmt.Printf("c1 = %.6f = 1/24, c2 = %.8f = 7/2880\n", c1, c2)
+	fmt.Printf("φ(10) = %.9f, series %.9f\n", special.ParabolicPhase(10), c1/10+c2/1e3+c3/1e5)
+	// Output:
+	// c1 = 0.041667 = 1/24, c2 = 0.00243056 = 7/2880
+	// φ(10) = 0.004169105, series 0.004169105
+}

@@ -210,3 +210,22 @@ func TestParabolicPhaseReduced(t *testing.T) {
 		}
 	}
 }
+
+// TestParabolicPhaseCoeff: the first coefficients of φ(ε) ~ Σ c_j ε^(1−2j),
+// from B_2(½) = −1/12, B_4(½) = 7/240, B_6(½) = −31/1344 (DLMF 24.4.27 with
+// B_2 = 1/6, B_4 = −1/30, B_6 = 1/42): c_j = (−1)^j B_{2j}(½)/(2j(2j−1)).
+func TestParabolicPhaseCoeff(t *testing.T) {
+	for _, c := range []struct {
+		j    int
+		want float64
+	}{{1, 1.0 / 24}, {2, 7.0 / 2880}, {3, 31.0 / 40320}} {
+		if got := ParabolicPhaseCoeff(c.j); math.Abs(got-c.want) > 1e-15*c.want {
+			t.Errorf("c_%d = %.17g, want %.17g", c.j, got, c.want)
+		}
+	}
+	for _, j := range []int{0, 18} {
+		if !math.IsNaN(ParabolicPhaseCoeff(j)) {
+			t.Errorf("c_%d = %g, want NaN", j, ParabolicPhaseCoeff(j))
+		}
+	}
+}

@@ -79,6 +79,19 @@ func ParabolicPhaseReduced(eps float64, n int) float64 {
 	return s
 }
 
+// ParabolicPhaseCoeff returns the coefficient c_j of ε^(1−2j) in the
+// large-ε series of φ (see ParabolicPhase), j ≥ 1:
+//
+//	c_j = (−1)^j B_{2j}(½) / (2j(2j−1)),   c_1 = 1/24, c_2 = 7/2880, c_3 = 31/40320.
+//
+// It returns NaN for j < 1 or j > 17.
+func ParabolicPhaseCoeff(j int) float64 {
+	if j < 1 || j > maxBernoulli {
+		return math.NaN()
+	}
+	return parabolicTerm(1, j-1)
+}
+
 // parabolicTerm returns the term j (from 0) of the large-ε series of φ.
 func parabolicTerm(eps float64, j int) float64 {
 	n := float64(2*j + 2)
