@@ -13,7 +13,7 @@ type Form int
 
 const (
 	Schrodinger Form = iota + 1 // −(ħ²/2m)ψ″ + Vψ = Eψ: λ = 1/ħ, Q = 2m(E − V)
-	Graded                      // s/TE waves in planar layers: λ = k0, Q = n² − n_in² sin²θ
+	Graded                      // s/TE or p/TM waves in planar layers: λ = k0, Q = n² − n_in² sin²θ
 	General                     // y″ + (λ²Q + Q1)y = 0 as written
 )
 
@@ -63,8 +63,9 @@ type SchrodingerForm struct {
 	Energy    *float64 // base energy, nil when not given
 }
 
-// GradedForm is the [graded] table: s/TE waves in a planar graded medium.
-// The medium is given by exactly one of Index and Permittivity.
+// GradedForm is the [graded] table: s (TE) or p (TM) waves in a planar
+// graded medium. The medium is given by exactly one of Index and
+// Permittivity.
 type GradedForm struct {
 	Index        *Formula // refractive index n(x), possibly complex; or nil
 	Permittivity *Formula // relative permittivity ε(x) = n(x)²; or nil
@@ -72,7 +73,7 @@ type GradedForm struct {
 	Wavelength   float64  // vacuum wavelength λ0 = 2π/K0
 	Angle        float64  // incidence angle θ in degrees, −90 < θ < 90
 	NIn          float64  // index of the incidence medium, > 0
-	Polarization string   // "s"
+	Polarization string   // "s" (TE) or "p" (TM); the spellings TE, te, TM and tm are normalised to these
 }
 
 // GeneralForm is the [general] table.

@@ -33,7 +33,7 @@
 //	energy = 0.8                      # optional base energy (needed for a single
 //	                                  # scattering point and for the Stokes geometry)
 //
-//	[graded]         # s/TE waves in planar layers:  λ = k0,  Q = n(x)² − n_in² sin²θ
+//	[graded]         # waves in planar layers:  λ = k0,  Q = n(x)² − n_in² sin²θ
 //	index = "1.25 + 0.25*tanh(x/w)"   # n(x), may be complex (absorption); or
 //	                                  # permittivity = "..." for ε(x) = n(x)², then
 //	                                  # Q = ε(x) − n_in² sin²θ (exactly one of the two)
@@ -42,8 +42,20 @@
 //	angle = 0.0                       # optional: incidence angle θ in degrees, in the
 //	                                  # medium of index n_in, −90 < θ < 90 (default 0)
 //	n_in = 1.0                        # optional: index of the incidence medium, > 0 (default 1)
-//	polarization = "s"                # optional: "s" (TE, the default); "p" (TM) is refused
-//	                                  # because it is not supported yet
+//	polarization = "s"                # optional: "s" (TE, the default; also "TE", "te") or
+//	                                  # "p" (TM; also "TM", "tm"), for which
+//	                                  # Q1 = ε″/(2ε) − (3/4)(ε′/ε)² (see below)
+//
+// For s waves y is the tangential electric field. For p waves it is
+// u = H/√ε, H the tangential magnetic field, which obeys
+// (H′/ε)′ + k0²(1 − s²/ε)H = 0 (s = n_in sin θ); the substitution removes H′
+// and leaves the λ-free term Q1 above (the derivation is in tm.go). For real
+// ε the flux Im(u*u′) equals the TM power flux Im(H*H′/ε), so R and T are
+// the TM power coefficients when ε is constant near both ends of
+// region.x; where ε still varies at an end they hold only to the accuracy
+// with which ε has settled. Q1 has double poles where ε = 0 (plasma
+// resonance, epsilon-near-zero points): genuine singularities of the p
+// equation, reported like any other.
 //
 //	[general]        # y″ + (λ² Q + Q1) y = 0 as written
 //	Q = "x^2 - 1"                     # required

@@ -106,3 +106,39 @@ points = 3
 	// theta (deg) = 30: lambda = 10, Q(0) = 2.0000
 	// theta (deg) = 60: lambda = 10, Q(0) = 1.5000
 }
+
+// A p-polarised (TM) case: the problem carries the λ-free term
+// Q1 = ε″/(2ε) − (3/4)(ε′/ε)² of the equation for H/√ε, which vanishes where
+// the medium is uniform and has a double pole where ε = 0; here
+// Q1 = (a − 2a²x²)/(1 + ax²)² with a = 0.5.
+func ExampleCase_Problem_tm() {
+	src := `
+# A demo: a permittivity ramp at oblique p incidence.
+form = "graded"
+
+[graded]
+permittivity = "1 + 0.5*x^2"
+wavelength = 1.0
+angle = 30
+polarization = "TM"
+
+[region]
+x = [-1, 1]
+`
+	c, err := cases.Parse("ramp.toml", []byte(src))
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	p, err := c.Problem()
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	fmt.Printf("polarization %s, lambda = %.4f\n", c.Graded.Polarization, p.Lambda)
+	fmt.Printf("Q(0) = %.4f, Q1(0) = %.4f, Q1(2) = %.4f\n",
+		real(p.Q.Eval(0)), real(p.Q1.Eval(0)), real(p.Q1.Eval(2)))
+	// Output:
+	// polarization p, lambda = 6.2832
+	// Q(0) = 0.7500, Q1(0) = 0.5000, Q1(2) = -0.1667
+}

@@ -13,7 +13,7 @@ import (
 // reports is placed inside the input, and that an accepted case builds its
 // problems without panicking.
 func FuzzLoad(f *testing.F) {
-	for _, name := range []string{"schrodinger.toml", "graded.toml", "general.toml", "errors.toml"} {
+	for _, name := range []string{"schrodinger.toml", "graded.toml", "graded_tm.toml", "general.toml", "errors.toml"} {
 		src, err := os.ReadFile(filepath.Join("testdata", name))
 		if err != nil {
 			f.Fatal(err)

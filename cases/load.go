@@ -259,9 +259,9 @@ func (d *decoder) graded(root *table, names []string) *GradedForm {
 			case "s", "TE", "te":
 				g.Polarization = "s"
 			case "p", "TM", "tm":
-				t.valueErrorf("polarization", "p/TM polarisation is not supported yet; use \"s\" (TE)")
+				g.Polarization = "p"
 			default:
-				t.valueErrorf("polarization", "%s must be \"s\" (TE), got %q", t.qualified("polarization"), p)
+				t.valueErrorf("polarization", "%s must be \"s\" (TE) or \"p\" (TM), got %q", t.qualified("polarization"), p)
 			}
 		}
 	}

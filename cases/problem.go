@@ -109,8 +109,11 @@ func (c *Case) at(v float64) (point, error) {
 
 // Problem returns the canonical problem y″ + (λ²Q + Q1)y = 0 at the values of
 // the file: Schrödinger λ = 1/ħ, Q = 2m(E − V) (which needs
-// schrodinger.energy); graded λ = k0, Q = n² − n_in² sin²θ; general as given.
-// Q is composed of the bound formulas, so its Taylor coefficients are exact.
+// schrodinger.energy); graded λ = k0, Q = ε − n_in² sin²θ with ε = n², and
+// for p (TM) waves Q1 = ε″/(2ε) − (3/4)(ε′/ε)², the Liouville form of the
+// equation for u = H/√ε, H the tangential magnetic field (Q1 has double
+// poles where ε = 0); general as given. Q and Q1 are composed of the bound
+// formulas, so their Taylor coefficients are exact.
 func (c *Case) Problem() (wkb.Problem, error) { return c.problem(c.base()) }
 
 // ProblemAt returns Problem with the scan variable (c.Scan.Over) set to v. It
@@ -175,7 +178,11 @@ func (c *Case) problem(p point) (wkb.Problem, error) {
 			return wkb.Problem{}, err
 		}
 		s := g.NIn * math.Sin(p.angle*math.Pi/180)
-		return wkb.Problem{Q: gradedQ{n: n, square: squared, s2: complex(s*s, 0)}, Lambda: p.k0}, nil
+		pr := wkb.Problem{Q: gradedQ{n: n, square: squared, s2: complex(s*s, 0)}, Lambda: p.k0}
+		if g.Polarization == "p" {
+			pr.Q1 = tmQ1{n: n, square: squared} // see tm.go
+		}
+		return pr, nil
 	case c.General != nil:
 		q, err := bind(c.General.Q, p.params, "general.Q")
 		if err != nil {

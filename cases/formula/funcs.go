@@ -26,16 +26,16 @@ type function struct {
 var functions = map[string]*function{
 	"sin":  {"sin", cmplx.Sin, jet.Sin},
 	"cos":  {"cos", cmplx.Cos, jet.Cos},
-	"tan":  {"tan", tan, func(a jet.Series) jet.Series { return riccati(a, tan(a[0]), 1, 1) }},
-	"cot":  {"cot", cot, func(a jet.Series) jet.Series { return riccati(a, cot(a[0]), -1, -1) }},
-	"sec":  {"sec", sec, func(a jet.Series) jet.Series { return reciprocal(a, sec(a[0]), 1, riccati(a, tan(a[0]), 1, 1)) }},
-	"csc":  {"csc", csc, func(a jet.Series) jet.Series { return reciprocal(a, csc(a[0]), -1, riccati(a, cot(a[0]), -1, -1)) }},
+	"tan":  {"tan", tan, tanSeries},
+	"cot":  {"cot", cot, cotSeries},
+	"sec":  {"sec", sec, func(a jet.Series) jet.Series { return reciprocal(a, sec(a[0]), 1, tanSeries(a)) }},
+	"csc":  {"csc", csc, func(a jet.Series) jet.Series { return reciprocal(a, csc(a[0]), -1, cotSeries(a)) }},
 	"sinh": {"sinh", cmplx.Sinh, jet.Sinh},
 	"cosh": {"cosh", cmplx.Cosh, jet.Cosh},
-	"tanh": {"tanh", tanh, func(a jet.Series) jet.Series { return riccati(a, tanh(a[0]), 1, -1) }},
-	"coth": {"coth", coth, func(a jet.Series) jet.Series { return riccati(a, coth(a[0]), 1, -1) }},
-	"sech": {"sech", sech, func(a jet.Series) jet.Series { return reciprocal(a, sech(a[0]), -1, riccati(a, tanh(a[0]), 1, -1)) }},
-	"csch": {"csch", csch, func(a jet.Series) jet.Series { return reciprocal(a, csch(a[0]), -1, riccati(a, coth(a[0]), 1, -1)) }},
+	"tanh": {"tanh", tanh, tanhSeries},
+	"coth": {"coth", coth, cothSeries},
+	"sech": {"sech", sech, func(a jet.Series) jet.Series { return reciprocal(a, sech(a[0]), -1, tanhSeries(a)) }},
+	"csch": {"csch", csch, func(a jet.Series) jet.Series { return reciprocal(a, csch(a[0]), -1, cothSeries(a)) }},
 	"exp":  {"exp", cmplx.Exp, jet.Exp},
 	"log":  {"log", cmplx.Log, jet.Log},
 	"sqrt": {"sqrt", cmplx.Sqrt, sqrtSeries},
@@ -73,10 +73,59 @@ func cot(z complex128) complex128 {
 // coth returns coth z = i cot(iz).
 func coth(z complex128) complex128 { return 1i * cot(1i*z) }
 
-func sec(z complex128) complex128  { return 1 / cmplx.Cos(z) }
-func csc(z complex128) complex128  { return 1 / cmplx.Sin(z) }
-func sech(z complex128) complex128 { return 1 / cmplx.Cosh(z) }
-func csch(z complex128) complex128 { return 1 / cmplx.Sinh(z) }
+func sec(z complex128) complex128 { return 1 / cmplx.Cos(z) }
+func csc(z complex128) complex128 { return 1 / cmplx.Sin(z) }
+
+// sech returns 1/cosh z; past |Re z| = 20 through exp(−|Re z|), which does
+// not overflow (nearer the axis 1/cmplx.Cosh keeps its accuracy by the
+// poles iπ(k+½), where 1 + exp(−2z) would cancel).
+func sech(z complex128) complex128 {
+	if math.Abs(real(z)) <= 20 {
+		return 1 / cmplx.Cosh(z)
+	}
+	if real(z) < 0 {
+		z = -z
+	}
+	e := cmplx.Exp(-z)
+	return 2 * e / (1 + e*e)
+}
+
+// csch returns 1/sinh z, likewise.
+func csch(z complex128) complex128 {
+	if math.Abs(real(z)) <= 20 {
+		return 1 / cmplx.Sinh(z)
+	}
+	if real(z) < 0 {
+		return -csch(-z)
+	}
+	e := cmplx.Exp(-z)
+	return 2 * e / (1 - e*e)
+}
+
+// The derivatives of tan, cot, tanh and coth are given by the Riccati
+// equations f′ = α + βf²; at the expansion point the value α + βf0² is
+// passed as sec², −csc², sech², −csch² computed directly, because forming
+// 1 − tanh² by subtraction loses every digit where tanh is within rounding
+// of ±1 (|Re z| ≳ 18), while sech² there is tiny but exact.
+func tanSeries(a jet.Series) jet.Series {
+	s := sec(a[0])
+	return riccati(a, tan(a[0]), s*s, 1, 1)
+}
+
+func cotSeries(a jet.Series) jet.Series {
+	s := csc(a[0])
+	return riccati(a, cot(a[0]), -s*s, -1, -1)
+}
+
+func tanhSeries(a jet.Series) jet.Series {
+	s := sech(a[0])
+	return riccati(a, tanh(a[0]), s*s, 1, -1)
+}
+
+func cothSeries(a jet.Series) jet.Series {
+	s := csch(a[0])
+	return riccati(a, coth(a[0]), -s*s, 1, -1)
+}
 
 // riccati returns the series of f∘a where f′ = α + βf² and f(a₀) = f0: tan
 // (α = β = 1), tanh and coth (α = 1, β = -1), cot (α = β = -1). From
@@ -85,11 +134,11 @@ func csch(z complex128) complex128 { return 1 / cmplx.Sinh(z) }
 //	k f_k = Σ_{j=1..k} j a_j w_{k-j},  w_m = α δ_{m0} + β Σ_{i=0..m} f_i f_{m-i}.
 //
 // Unlike sin/cos, it stays finite where f is bounded but sin and cos overflow.
-func riccati(a jet.Series, f0, alpha, beta complex128) jet.Series {
+func riccati(a jet.Series, f0, w0, alpha, beta complex128) jet.Series {
 	f := make(jet.Series, len(a))
 	w := make(jet.Series, len(a))
 	f[0] = f0
-	w[0] = alpha + beta*f0*f0
+	w[0] = w0 // α + βf0², passed in computed without cancellation
 	for k := 1; k < len(a); k++ {
 		var sum complex128
 		for j := 1; j <= k; j++ {

@@ -270,25 +270,23 @@ func tanhSech(a Series) (t, s Series) {
 	t = make(Series, n)
 	s = make(Series, n)
 	t[0], s[0] = stableTanhSech(a[0])
-	tt := make(Series, n) // t², built as t grows
+	// t′ = s²·a′ rather than (1 − t²)·a′: the subtraction loses every digit
+	// where t is within rounding of ±1, while s² there is tiny but exact.
+	ss := make(Series, n) // s², built as s grows
 	st := make(Series, n) // s·t
-	tt[0] = t[0] * t[0]
+	ss[0] = s[0] * s[0]
 	st[0] = s[0] * t[0]
 	for k := 1; k < n; k++ {
 		var dt, ds complex128
 		for j := 1; j <= k; j++ {
 			w := complex(float64(j), 0) * a[j]
-			one := complex128(0)
-			if k-j == 0 {
-				one = 1
-			}
-			dt += w * (one - tt[k-j])
+			dt += w * ss[k-j]
 			ds -= w * st[k-j]
 		}
 		kk := complex(float64(k), 0)
 		t[k], s[k] = dt/kk, ds/kk
 		for j := 0; j <= k; j++ {
-			tt[k] += t[j] * t[k-j]
+			ss[k] += s[j] * s[k-j]
 			st[k] += s[j] * t[k-j]
 		}
 	}

@@ -215,19 +215,23 @@ def scatter(Q, lam, a, b, right="plane"):
     return R, T, steps
 
 
-def level(Q_of_E, lam, a, b, xm, E0, n, left="decay", right="decay", radial_l=None):
+def level(Q_of_E, lam, a, b, xm, E0, n, left="decay", right="decay", radial_l=None, parity=None):
     """Bound-state energy with n nodes by two-sided shooting.
 
     Q_of_E(E) returns Q as a jet function; the left solution starts at a
     (y=0, y'=1 for a wall or for a point deep in the forbidden region, whose
     error is the exponentially small e^{-2 lam int |Q|^1/2}; or the regular
     Frobenius start r^{l+1} when radial_l is set), the right one at b, and the
-    Wronskian at xm is zeroed by the secant method. Returns (E, node count)."""
+    Wronskian at xm is zeroed by the secant method. For an even potential,
+    parity "even" or "odd" starts the left solution at a = 0 with y' = 0 or
+    y = 0 and counts the nodes of the whole line. Returns (E, node count)."""
     lam = mpf(lam)
 
     def shoot(E):
         Q = Q_of_E(E)
-        if radial_l is not None:
+        if parity is not None:
+            y0, d0 = (mpf(1), mpf(0)) if parity == "even" else (mpf(0), mpf(1))
+        elif radial_l is not None:
             l = radial_l
             y0, d0 = mpf(a) ** (l + 1), (l + 1) * mpf(a) ** l
         else:
@@ -235,7 +239,10 @@ def level(Q_of_E, lam, a, b, xm, E0, n, left="decay", right="decay", radial_l=No
         yl, dl, nl, _ = propagate(Q, lam, a, xm, y0, d0, nodes=True)
         yr, dr, nr, _ = propagate(Q, lam, b, xm, mpf(0), mpf(-1), nodes=True)
         nrm = sqrt(yl**2 + (dl / lam) ** 2) * sqrt(yr**2 + (dr / lam) ** 2)
-        return (yl * dr - dl * yr) / (lam * nrm), nl + nr
+        nodes = nl + nr
+        if parity is not None:
+            nodes = 2 * nodes + (1 if parity == "odd" else 0)
+        return (yl * dr - dl * yr) / (lam * nrm), nodes
 
     E = mp.findroot(lambda e: shoot(e)[0], (mpf(E0), mpf(E0) * (1 + mpf("1e-6")) + mpf("1e-9")),
                     solver="secant", tol=mpf(10) ** (-2 * mp.dps + 10), maxsteps=100)
