@@ -248,6 +248,9 @@ func scatterAt(c *cases.Case, v float64, base bool) ScanRow {
 	for _, pt := range pts {
 		sing = append(sing, pt.Z)
 	}
+	// The λ-free term (the Liouville term of p waves, a centrifugal term)
+	// has singularities of its own, which the complex path must avoid too.
+	sing = append(sing, q1Singularities(p, c.SearchBox())...)
 	if n, err := direct.Scatter(p, a, b, &direct.Settings{Singularities: sing}); err != nil {
 		row.Error = joinErr(row.Error, fmt.Sprintf("numeric: %v", err))
 	} else {
@@ -504,3 +507,21 @@ func uniqueSorted(xs []int) []int {
 // integrals θ and the connection phases to order 4 in 1/λ, each truncated
 // earlier at its least term.
 const scatterOrder = 4
+
+// q1Singularities returns the poles of the λ-free term Q1 in the box.
+func q1Singularities(p wkb.Problem, box turning.Box) []complex128 {
+	if p.Q1 == nil {
+		return nil
+	}
+	res, err := turning.Find(p.Q1, box, nil)
+	if err != nil {
+		return nil
+	}
+	var out []complex128
+	for _, pt := range res.Points {
+		if pt.Order < 0 {
+			out = append(out, pt.Z)
+		}
+	}
+	return out
+}
