@@ -73,6 +73,9 @@ type PointsReport struct {
 	Status   string       `json:"status"`
 	Complete bool         `json:"complete"`
 	Warnings []string     `json:"warnings,omitempty"`
+	// Q1Poles are the poles of the λ-free term Q1 in the box (for p waves,
+	// where ε = 0): singularities of the equation that are not zeros or poles of Q.
+	Q1Poles []Complex `json:"q1_poles,omitempty"`
 }
 
 // PointEntry is one zero or pole of Q.

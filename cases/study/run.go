@@ -102,6 +102,9 @@ func Run(c *cases.Case, what Study, opt *Options) *Report {
 		} else {
 			pts, res := findPoints(p, c.SearchBox())
 			pts.At, pts.AtWhat = at, atWhat
+			for _, z := range q1Singularities(p, c.SearchBox()) {
+				pts.Q1Poles = append(pts.Q1Poles, C(z))
+			}
 			rep.Points = pts
 			if what&Geometry != 0 && res != nil {
 				rep.Stokes = traceGeometry(c, p, res, opt, rep)

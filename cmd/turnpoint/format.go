@@ -94,6 +94,9 @@ func writePoints(w io.Writer, p *study.PointsReport) {
 		state = "INCOMPLETE (" + p.Status + "): the list may miss points"
 	}
 	fmt.Fprintf(w, "argument principle: winding %d = %d zeros - %d poles; %s\n", p.Winding, p.Zeros, p.Poles, state)
+	for _, z := range p.Q1Poles {
+		fmt.Fprintf(w, "singularity of the lambda-free term Q1 (not a zero or pole of Q): pole at %s\n", fmtC(z))
+	}
 	for _, s := range p.Warnings {
 		fmt.Fprintf(w, "warning: %s\n", s)
 	}
