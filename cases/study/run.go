@@ -236,7 +236,14 @@ func scatterAt(c *cases.Case, v float64, base bool) ScanRow {
 	} else {
 		pts = res.Points
 	}
-	if w, err := connect.Scatter(p, a, b, pts, &connect.Settings{MaxOrder: scatterOrder}); err != nil {
+	// The poles of Q1 go to the connection formulae with the points of Q:
+	// the contour integrals of the higher orders must not enclose them.
+	q1poles := q1Singularities(p, c.SearchBox())
+	wkbPts := append([]turning.Point(nil), pts...)
+	for _, z := range q1poles {
+		wkbPts = append(wkbPts, turning.Point{Z: z, Order: -2, Kind: turning.Pole})
+	}
+	if w, err := connect.Scatter(p, a, b, wkbPts, &connect.Settings{MaxOrder: scatterOrder}); err != nil {
 		row.Error = joinErr(row.Error, fmt.Sprintf("wkb: %v", err))
 	} else {
 		amp := &Amplitude{R: Number(w.R), T: Number(w.T), ErrR: Number(w.ErrR), ErrT: Number(w.ErrT),
@@ -253,7 +260,7 @@ func scatterAt(c *cases.Case, v float64, base bool) ScanRow {
 	}
 	// The λ-free term (the Liouville term of p waves, a centrifugal term)
 	// has singularities of its own, which the complex path must avoid too.
-	sing = append(sing, q1Singularities(p, c.SearchBox())...)
+	sing = append(sing, q1poles...)
 	if n, err := direct.Scatter(p, a, b, &direct.Settings{Singularities: sing}); err != nil {
 		row.Error = joinErr(row.Error, fmt.Sprintf("numeric: %v", err))
 	} else {
