@@ -229,43 +229,85 @@ func plotLevels(c *cases.Case, w wkb.Well, lr *LevelsReport, path string) error 
 	p.X.Label.Text = "x"
 	p.Y.Label.Text = "V(x), E"
 	a, b := w.A, w.B
-	var vxy plotter.XYs
-	const n = 400
-	for i := 0; i <= n; i++ {
-		x := a + (b-a)*float64(i)/n
-		v := real(w.V.Eval(complex(x, 0)))
-		if !math.IsNaN(v) && !math.IsInf(v, 0) {
-			vxy = append(vxy, plotter.XY{X: x, Y: v})
+	const n = 800
+	xs := make([]float64, n+1)
+	vs := make([]float64, n+1)
+	lo, emax := math.Inf(1), math.Inf(-1)
+	for i := range xs {
+		xs[i] = a + (b-a)*float64(i)/n
+		vs[i] = real(w.V.Eval(complex(xs[i], 0)))
+		if !math.IsNaN(vs[i]) && !math.IsInf(vs[i], 0) {
+			lo = math.Min(lo, vs[i])
 		}
 	}
-	emax := math.Inf(-1)
 	for _, r := range lr.Rows {
-		emax = math.Max(emax, math.Max(float64(r.WKB), float64(r.Numeric)))
+		for _, e := range []float64{float64(r.WKB), float64(r.Numeric)} {
+			if !math.IsNaN(e) {
+				emax = math.Max(emax, e)
+			}
+		}
 	}
-	if l, err := plotter.NewLine(vxy); err == nil {
-		l.Width = vg.Points(1.5)
-		p.Add(l)
-		p.Legend.Add("V(x)", l)
+	top := math.Inf(1)
+	if !math.IsInf(emax, 0) && !math.IsInf(lo, 0) {
+		top = emax + 0.2*(emax-lo)
+		// Show a barrier between wells whole, when it is not much higher.
+		for i := 1; i < n; i++ {
+			if v := vs[i]; v > vs[i-1] && v >= vs[i+1] && v > top && v-lo < 4*(emax-lo) {
+				top = v + 0.1*(v-lo)
+			}
+		}
+	}
+	// The potential is drawn up to a little above the highest level, in
+	// pieces, so the space above stays free for the legend.
+	var pieces []plotter.XYs
+	var cur plotter.XYs
+	for i := range xs {
+		if math.IsNaN(vs[i]) || math.IsInf(vs[i], 0) || vs[i] > top {
+			if len(cur) > 1 {
+				pieces = append(pieces, cur)
+			}
+			cur = nil
+			continue
+		}
+		cur = append(cur, plotter.XY{X: xs[i], Y: vs[i]})
+	}
+	if len(cur) > 1 {
+		pieces = append(pieces, cur)
+	}
+	for k, piece := range pieces {
+		if l, err := plotter.NewLine(piece); err == nil {
+			l.Width = vg.Points(1.5)
+			p.Add(l)
+			if k == 0 {
+				p.Legend.Add("V(x)", l)
+			}
+		}
 	}
 	var num plotter.XYs
 	first := true
 	for _, r := range lr.Rows {
 		e := float64(r.WKB)
 		if math.IsNaN(e) {
+			e = float64(r.Numeric)
+		}
+		if math.IsNaN(e) {
 			continue
 		}
-		seg := plotter.XYs{{X: r.Turning[0], Y: e}, {X: r.Turning[1], Y: e}}
-		if l, err := plotter.NewLine(seg); err == nil {
-			l.Color = colWKB
-			l.Width = vg.Points(1)
-			p.Add(l)
-			if first {
-				p.Legend.Add("WKB level between its turning points", l)
-				first = false
+		// Each level is drawn over the classically allowed stretches at its
+		// energy (one per well), the numerical energy marked in each.
+		for _, seg := range allowed(xs, vs, e) {
+			if l, err := plotter.NewLine(plotter.XYs{{X: seg[0], Y: float64(r.WKB)}, {X: seg[1], Y: float64(r.WKB)}}); err == nil && !math.IsNaN(float64(r.WKB)) {
+				l.Color = colWKB
+				l.Width = vg.Points(1)
+				p.Add(l)
+				if first {
+					p.Legend.Add("WKB level over the allowed region", l)
+					first = false
+				}
 			}
-		}
-		if en := float64(r.Numeric); !math.IsNaN(en) {
-			num = append(num, plotter.XY{X: (r.Turning[0] + r.Turning[1]) / 2, Y: en})
+			if en := float64(r.Numeric); !math.IsNaN(en) {
+				num = append(num, plotter.XY{X: (seg[0] + seg[1]) / 2, Y: en})
+			}
 		}
 	}
 	if len(num) > 0 {
@@ -278,17 +320,10 @@ func plotLevels(c *cases.Case, w wkb.Well, lr *LevelsReport, path string) error 
 		}
 	}
 	p.Legend.Top = true
-	if !math.IsInf(emax, 0) {
-		// Show the potential up to a little above the highest level (the
-		// line is clipped there), with headroom for the legend. Set after
-		// the plotters are added, which widen the axes to their data.
-		lo := math.Inf(1)
-		for _, q := range vxy {
-			lo = math.Min(lo, q.Y)
-		}
-		top := emax + 0.2*(emax-lo)
+	if !math.IsInf(top, 0) {
+		// Set after the plotters are added, which widen the axes to their data.
 		p.Y.Min = lo - 0.05*(top-lo)
-		p.Y.Max = top + 0.3*(top-lo)
+		p.Y.Max = top + 0.35*(top-lo)
 	}
 	canvas, write, err := newCanvas(path, 16*vg.Centimeter, 11*vg.Centimeter)
 	if err != nil {
@@ -296,4 +331,31 @@ func plotLevels(c *cases.Case, w wkb.Well, lr *LevelsReport, path string) error 
 	}
 	p.Draw(canvas)
 	return writeFile(path, write)
+}
+
+// allowed returns the intervals of the sampled potential where e > V, with
+// the ends interpolated linearly between samples.
+func allowed(xs, vs []float64, e float64) [][2]float64 {
+	var out [][2]float64
+	in := false
+	var start float64
+	for i := range xs {
+		ok := vs[i] < e
+		switch {
+		case ok && !in:
+			start = xs[i]
+			if i > 0 {
+				start = xs[i-1] + (xs[i]-xs[i-1])*(e-vs[i-1])/(vs[i]-vs[i-1])
+			}
+			in = true
+		case !ok && in:
+			end := xs[i-1] + (xs[i]-xs[i-1])*(e-vs[i-1])/(vs[i]-vs[i-1])
+			out = append(out, [2]float64{start, end})
+			in = false
+		}
+	}
+	if in {
+		out = append(out, [2]float64{start, xs[len(xs)-1]})
+	}
+	return out
 }

@@ -39,10 +39,18 @@
 //
 // # Error estimates
 //
-// Every energy carries Err: the least term of the phase series converted
-// to energy by dE = δ/(∂Phase/∂E) = δ ħω/π, plus the quadrature errors, plus
-// (two soft ends) Beyond, the exponentially small coupling to the nearest
-// other zero of Q that no order of the series sees. For coupled wells the
-// change at the next order, the uncertainty of the comparison mappings
-// (well bottoms, barrier top) and, near the top, the previous change.
+// Every energy carries Err: the remainder of the phase series converted to
+// energy by dE = δ/(∂Phase/∂E) = δ ħω/π — the least term where the series
+// reached it, twice the next term while its terms still decrease (the next
+// term and the rest beyond it) — plus the quadrature errors, plus (two soft
+// ends) Beyond, the exponentially small coupling to the nearest other zero
+// of Q that no order of the series sees. For coupled wells the series is
+// that of the energies order by order: twice the change at the next order,
+// and within two ħω_b of the barrier top (θ < 2π), where the barrier
+// corrections are powers of 1/ε that are not yet small, also the previous
+// change; the two levels of a tunnelling doublet take the larger of their
+// two estimates. The asymptotic terms of the barrier-top phase φ and of the
+// well-bottom factor F are part of that series and are not counted again.
+// A splitting's estimate is the next change of the splitting itself, in
+// which the levels' common error cancels, plus the two root tolerances.
 package levels

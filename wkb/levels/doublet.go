@@ -18,7 +18,7 @@ type Doublet struct {
 	N            int // doublet index n: levels 2n and 2n+1
 	Lower, Upper Level
 	Splitting    float64 // Upper.E − Lower.E
-	SplittingErr float64 // change of the splitting with the next order, plus root tolerances
+	SplittingErr float64 // error estimate of Splitting: its own change with order (twice the next; near the top plus the previous), plus the root tolerances
 	Method       string
 }
 
@@ -224,14 +224,15 @@ func wellFactor(s float64, j int) float64 {
 // (DLMF 24.4.27): the coefficients of ln Γ(z+½) − (z ln z − z + ½ ln 2π).
 var stirlingHalf = []float64{-1.0 / 24, 7.0 / 2880, -31.0 / 40320, 127.0 / 215040, -511.0 / 608256, 1414477.0 / 738017280}
 
-// mappingUncertainty estimates the error of the comparison-equation
-// mappings themselves, which no order of the phase integrals sees: the
-// parabolic-well factor F is evaluated at the action a = S/π, while the
-// local harmonic quantum number (E − V_min)/(ħω) is an equally valid
-// argument to leading order; likewise the barrier-top phase φ at
-// ε = −θ/π versus (E − V_top)/(ħω_b). The differences of ½ ln F (per
-// well, relative on r) and of φ/2 (on the phases) are the estimates.
-func (tw *twoWell) mappingUncertainty(E float64, c coupled) (fUnc, phiUnc float64) {
+// topMappingUncertainty estimates, for levels above the barrier top where
+// no higher order is available, the error of the barrier-top comparison
+// mapping: the phase φ at ε = −θ/π versus at the local harmonic value
+// (E − V_top)/(ħω_b), equally valid to leading order; half the difference
+// is the estimate (on the phases). Below the top it is not used: there the
+// terms of the asymptotic expansions of φ and of the well-bottom factor F
+// in which the two arguments differ are part of the phase series, and what
+// remains is seen by the change at the next order.
+func (tw *twoWell) topMappingUncertainty(E float64, c coupled) (phiUnc float64) {
 	w := tw.g.w
 	harm := func(x, v float64) float64 {
 		t := w.V.Taylor(complex(x, 0), 2)
@@ -241,26 +242,10 @@ func (tw *twoWell) mappingUncertainty(E float64, c coupled) (fUnc, phiUnc float6
 		}
 		return (E - v) / (w.Hbar * om)
 	}
-	lnF := func(a float64) float64 {
-		if !(a > 0) {
-			return -0.5 * math.Ln2
-		}
-		return real(special.LogGamma(complex(a+0.5, 0))) + a - a*math.Log(a) - 0.5*math.Log(2*math.Pi)
-	}
-	if !c.wallL {
-		if ah := harm(tw.xl, tw.vl); !math.IsNaN(ah) {
-			fUnc += 0.5 * math.Abs(lnF(c.s1/math.Pi)-lnF(ah))
-		}
-	}
-	if !c.wallR {
-		if ah := harm(tw.xr, tw.vr); !math.IsNaN(ah) {
-			fUnc += 0.5 * math.Abs(lnF(c.s2/math.Pi)-lnF(ah))
-		}
-	}
 	if eb := harm(tw.xb, tw.vtop); !math.IsNaN(eb) {
 		phiUnc = 0.5 * math.Abs(special.ParabolicPhase(-c.theta/math.Pi)-special.ParabolicPhase(eb))
 	}
-	return fUnc, phiUnc
+	return phiUnc
 }
 
 // countPhase returns the monotone functions Ψ − h and Ψ + h whose values
@@ -320,9 +305,27 @@ func countPhase(c coupled, j int) (minus, plus float64) {
 	root := math.Sqrt(1 + x*x)
 	k := x * x / ((root + 1) * (root + 1))
 	r2 := k / (f1 * f2)
+	return a + b - halfGap(a-b, r2), a + b + halfGap(a-b, r2)
+}
+
+// halfGap returns h = arccos(−ρ cos d), ρ = (1 − r²)/(1 + r²), without the
+// cancellation of 1 − ρ against 1 that arccos would suffer for the tiny r²
+// of deep doublets (r² ≈ e^(−2θ)/4 is below rounding of 1 for θ ≳ 17, and
+// the splitting, ∝ r, would be lost): with 1 − ρ = 2r²/(1 + r²) and
+// 1 ∓ cos d = 2 sin²(d/2), 2 cos²(d/2),
+//
+//	π − h = 2 arcsin √(sin²(d/2) + r² cos d/(1 + r²))   (ρ cos d ≥ 0),
+//	h     = 2 arcsin √(cos²(d/2) − r² cos d/(1 + r²))   (ρ cos d < 0).
+func halfGap(d, r2 float64) float64 {
+	c := math.Cos(d)
+	u := r2 / (1 + r2) * c
 	rho := (1 - r2) / (1 + r2)
-	h := math.Acos(math.Max(-1, math.Min(1, -rho*math.Cos(a-b))))
-	return a + b - h, a + b + h
+	if rho*c >= 0 {
+		s := math.Sin(d / 2)
+		return math.Pi - 2*math.Asin(math.Sqrt(math.Max(0, math.Min(1, s*s+u))))
+	}
+	co := math.Cos(d / 2)
+	return 2 * math.Asin(math.Sqrt(math.Max(0, math.Min(1, co*co-u))))
 }
 
 // Doublets returns, for each n in ns, the levels 2n and 2n+1 of two wells
@@ -356,27 +359,90 @@ func Doublets(w wkb.Well, ns []int, s *Settings) ([]Doublet, error) {
 		if err != nil {
 			return out, err
 		}
+		if coupledPair(lo, hi) {
+			// One truncation order for both levels, judged by the larger
+			// of their changes, so that the splitting is that of one order.
+			m := min(len(lo.es), len(hi.es))
+			ds := make([]float64, m)
+			for k := 1; k < m; k++ {
+				ds[k] = ds[k-1] + math.Max(math.Abs(lo.es[k]-lo.es[k-1]), math.Abs(hi.es[k]-hi.es[k-1]))
+			}
+			kk := leastOrder(ds, ds, lo.maxK)
+			lo.setOrder(kk)
+			hi.setOrder(kk)
+		}
+		if tunnelPair(lo, hi, w.Hbar) {
+			// A tunnelling doublet may be split far below the root
+			// tolerance: the energies at the order used and the next are
+			// re-solved to rounding, so that the splitting and its change
+			// with order are not lost in it.
+			lo.polishOrders()
+			hi.polishOrders()
+			// A tunnelling doublet: the errors of its levels are a common
+			// part plus and minus half the splitting's; the next change of
+			// one level may have the two nearly cancel where the other has
+			// them add, so each level takes the larger estimate.
+			e := math.Max(lo.errOrd, hi.errOrd)
+			lo.Err += e - lo.errOrd
+			hi.Err += e - hi.errOrd
+		}
 		d := Doublet{N: n, Lower: lo.Level, Upper: hi.Level, Splitting: hi.E - lo.E}
-		// The splitting's error: its change with the next order.
-		// The splitting's error: its change with the next order, the
-		// uncertainty of the well-bottom comparison (relative, on the
-		// splitting) and the root tolerances.
+		// The splitting's error: its change with the next order (by the
+		// rule of orderErr) and the root tolerances. The common error of
+		// the two levels cancels in the change, which is that of the
+		// splitting itself (relative to it for a tunnelling doublet).
 		split := make([]float64, min(len(lo.es), len(hi.es)))
 		for j := range split {
 			split[j] = hi.es[j] - lo.es[j]
 		}
 		kk := min(lo.Order, hi.Order) / 2
 		var se float64
-		if len(split) > kk {
-			se = orderErr(split, kk, lo.nearTop || hi.nearTop)
+		if len(split) > kk+1 && lo.Order == hi.Order && !lo.above && !hi.above {
+			// A level of the deeper well alone (single) carries, besides
+			// its series, the coupling beyond all orders: kept.
+			se = orderErr(split, kk, lo.nearTop || hi.nearTop) + lo.Beyond + hi.Beyond
 		} else {
-			se = lo.errOrd + hi.errOrd // levels from different methods
+			se = lo.errOrd + hi.errOrd // no next order for both, or levels from different methods
 		}
-		d.SplittingErr = se + math.Abs(d.Splitting)*math.Max(lo.fUnc, hi.fUnc) + lo.rootTol + hi.rootTol
+		d.SplittingErr = se + lo.rootTol + hi.rootTol
 		d.Method = lo.Method
 		out = append(out, d)
 	}
 	return out, nil
+}
+
+// tunnelPair reports whether levels lo and hi, both from the coupled
+// condition below the barrier top with the same orders, form a tunnelling
+// doublet: split by less than a quarter of the level spacing ħω.
+func tunnelPair(lo, hi levelX, hbar float64) bool {
+	if !coupledPair(lo, hi) || len(lo.es) != len(hi.es) {
+		return false
+	}
+	return hi.E-lo.E < 0.25*hbar*math.Min(lo.Omega, hi.Omega)
+}
+
+// polishOrders re-solves the energies at the order used and the next to
+// rounding, and lowers the root tolerance to what was reached: 8 ulp of E.
+func (lv *levelX) polishOrders() {
+	if lv.polish == nil {
+		return
+	}
+	k := lv.Order / 2
+	for j := k; j <= k+1 && j < len(lv.es); j++ {
+		e, ok := lv.polish(j, lv.es[j])
+		if !ok {
+			return
+		}
+		lv.es[j] = e
+	}
+	lv.rootTol = 8 * eps * math.Abs(lv.es[k])
+	lv.setOrder(k)
+}
+
+// coupledPair reports whether both levels come from the coupled condition
+// below the barrier top.
+func coupledPair(lo, hi levelX) bool {
+	return !(lo.above || hi.above || lo.single || hi.single)
 }
 
 // levelX is a Level with the signed change at the next order, used for
@@ -386,15 +452,22 @@ type levelX struct {
 	es      []float64 // energies at orders 0, 2, …, including the one beyond Order
 	nearTop bool
 	errOrd  float64 // error from the change between orders
-	rootTol float64
-	fUnc    float64 // relative uncertainty of r = √K/√(F1F2) from the comparison mapping
-	phiUnc  float64 // uncertainty of the phase A from the barrier-top mapping
+	above   bool    // from levelAbove
+	maxK    int     // MaxOrder/2
+	// polish re-solves the energy e at order 2j to rounding.
+	polish func(j int, e float64) (float64, bool)
+	// firstErr is the estimate of a level with no higher order.
+	firstErr float64
+	single   bool // from solveOne (below the other well's bottom)
+	rootTol  float64
 }
 
 // orderErr returns the error estimate of es[k] from the changes between
-// orders: the next change; near the barrier top twice that plus the
-// previous change; without a next order twice the previous change (or
-// +Inf at first order).
+// orders: twice the next change, i.e. the next term of the series plus its
+// remainder beyond, which while the terms still decrease is at most about
+// the next term again; near the barrier top, where the corrections are not
+// uniform and need not decrease, that plus the previous change; without a
+// next order twice the previous change (or +Inf at first order).
 func orderErr(es []float64, k int, nearTop bool) float64 {
 	var prev float64
 	if k >= 1 {
@@ -410,7 +483,7 @@ func orderErr(es []float64, k int, nearTop bool) float64 {
 	if nearTop {
 		return 2*next + prev
 	}
-	return next
+	return 2 * next
 }
 
 // level returns global level N of the coupled wells.
@@ -426,25 +499,41 @@ func (tw *twoWell) level(N int, set Settings) (levelX, error) {
 	K := set.MaxOrder / 2
 	xtol := set.Tol * math.Max(math.Abs(tw.vtop), span)
 	var hints [3]radiusHint
-	g := func(E float64, j int) float64 {
+	gPhi := func(E float64, j int, noPhi bool) float64 {
 		c, err := tw.phases(E, j, set.Phase, &hints)
 		if err != nil {
 			return math.NaN()
 		}
+		c.noPhi = noPhi
 		m, p := countPhase(c, j)
 		if N%2 == 0 {
 			return m - math.Pi*float64(N)
 		}
 		return p - math.Pi*float64(N+1)
 	}
+	g := func(E float64, j int) float64 { return gPhi(E, j, false) }
+	polish := func(j int, e float64) (float64, bool) {
+		f := func(E float64) float64 { return g(E, j) }
+		a, b := e-2*xtol, e+2*xtol
+		if !(f(a) <= 0 && f(b) >= 0) {
+			return e, false
+		}
+		return root(f, a, b, 0)
+	}
 	if v := g(lo, 0); v > 0 {
 		// Below the shallower well: the deeper well alone.
-		lv, err := solveOne(tw.g, N, set)
+		lv, next, err := solveNext(tw.g, N, set)
 		if err != nil {
 			return levelX{}, err
 		}
 		lv.Method = "single well below the bottom of the other well: " + lv.Method
-		return levelX{Level: lv, es: []float64{lv.E}, errOrd: lv.Err, rootTol: lv.Err}, nil
+		// Energies by order up to the one used, and the next, so that a
+		// neighbour's difference from it can be judged order by order.
+		es := append([]float64(nil), lv.ByOrder[:lv.Order/2+1]...)
+		if !math.IsNaN(next) {
+			es = append(es, next)
+		}
+		return levelX{Level: lv, es: es, errOrd: lv.Err, single: true}, nil
 	}
 	if v := g(hi, 0); !(v >= 0) {
 		if math.IsNaN(v) {
@@ -454,6 +543,7 @@ func (tw *twoWell) level(N int, set Settings) (levelX, error) {
 	}
 	var lv levelX
 	lv.N = N
+	lv.polish = polish
 	var es []float64
 	for j := 0; j <= K+1; j++ {
 		f := func(E float64) float64 { return g(E, j) }
@@ -465,11 +555,22 @@ func (tw *twoWell) level(N int, set Settings) (levelX, error) {
 			if j > 1 {
 				d = math.Max(d, 4*math.Abs(es[j-1]-es[j-2]))
 			}
+			// Beyond the second order a root farther than a few hundred
+			// times the last change means the series has diverged: the
+			// search stops there (and at the ends of the range) rather
+			// than evaluate the costly higher orders across the range.
+			dmax := math.Inf(1)
+			if j > 1 {
+				dmax = 64 * d
+			}
 			ok := false
-			for k := 0; k < 30; k++ {
+			for k := 0; k < 30 && d <= dmax; k++ {
 				a, b = math.Max(lo, prev-d), math.Min(hi, prev+d)
 				if f(a) <= 0 && f(b) >= 0 {
 					ok = true
+					break
+				}
+				if a == lo && b == hi {
 					break
 				}
 				d *= 2
@@ -488,39 +589,99 @@ func (tw *twoWell) level(N int, set Settings) (levelX, error) {
 		}
 		es = append(es, e)
 	}
-	kk := min(K, len(es)-1)
-	lv.ByOrder = es[:kk+1]
-	lv.E = es[kk]
-	lv.Order = 2 * kk
 	lv.rootTol = xtol
 	lv.es = es
+	lv.maxK = K
+	kk := leastOrder(es, es, K)
+	lv.E = es[kk]
 	c, err := tw.phases(lv.E, 0, set.Phase, nil)
 	if err != nil {
 		return levelX{}, err
 	}
-	// Within about one ħω_b of the barrier top (|ε| < 1) the corrections of
-	// the phase integrals are not uniform and need not decrease: there the
-	// estimate also takes the previous order's change.
-	lv.nearTop = c.theta < math.Pi
-	lv.errOrd = orderErr(es, kk, lv.nearTop)
-	if len(es) <= kk+1 {
-		lv.Warnings = append(lv.Warnings, "no next-order energy: the estimate uses the last change")
+	// Within about two ħω_b of the barrier top (|ε| = θ/π < 2) the barrier
+	// corrections, powers of 1/ε, are not yet small and need not decrease
+	// (at θ ≈ 4 the true error of order 6 is still three times the change
+	// to order 8): there the estimate also takes the previous change.
+	lv.nearTop = c.theta < 2*math.Pi
+	if len(es) == 1 {
+		// First order only (the higher orders have no root, as happens
+		// just below the top, where their barrier corrections grow like
+		// powers of 1/ε): as above the top, the estimate is the change
+		// when the barrier-top phase φ, the uniform correction, is left
+		// out.
+		f := func(E float64) float64 { return gPhi(E, 0, true) }
+		a, b := lo, hi
+		if f(a) <= 0 && f(b) >= 0 {
+			if e0, ok := root(f, a, b, xtol); ok {
+				lv.firstErr = math.Abs(lv.E - e0)
+				lv.Warnings = append(lv.Warnings, "first order only: the estimate is the size of the barrier-top correction")
+			}
+		}
 	}
-	lv.fUnc, lv.phiUnc = tw.mappingUncertainty(lv.E, c)
-	// An uncertainty δA of the phases moves the level by δA/(dA/dE); a
-	// relative uncertainty u of r moves it by about u·r/(dA/dE).
-	dA := c.d1 + c.d2
-	if dA > 0 {
-		lv.Err = lv.errOrd + xtol + 2*lv.phiUnc/dA
-	} else {
-		lv.Err = math.Inf(1)
-	}
+	lv.setOrder(kk)
 	lv.Turning = [2]float64{c.t[0], c.t[3]}
 	lv.Maslov = maslov(end{wall: c.wallL}, end{wall: c.wallR})
 	lv.Period = 2 * w.Hbar * c.d1
 	lv.Omega = 2 * math.Pi / lv.Period
-	lv.Method = fmt.Sprintf("two wells, uniform parabolic connection through the barrier, phase integrals to order %d", lv.Order)
 	return lv, nil
+}
+
+// leastOrder returns the index of the order at which to truncate the
+// energies es (orders 0, 2, …), judged by the changes ds between orders
+// (es itself, or for a doublet the larger change of its two levels). With
+// the energy beyond kmax found, kmax: near the top the changes are not yet
+// terms of an asymptotic series (a small change may be a cancellation,
+// and the order after a large one still better), which orderErr's
+// previous-change term covers. When the series broke down before (a
+// higher order had no root), the last order found if the changes decrease
+// up to it, otherwise the order before the least change (optimal
+// truncation, as in Solve).
+func leastOrder(es, ds []float64, kmax int) int {
+	if len(es) >= kmax+2 {
+		return kmax
+	}
+	m := len(es) - 1
+	if m < 1 {
+		return 0
+	}
+	least := 1
+	for k := 2; k <= m; k++ {
+		if math.Abs(ds[k]-ds[k-1]) < math.Abs(ds[least]-ds[least-1]) {
+			least = k
+		}
+	}
+	if least == m {
+		return m
+	}
+	return least - 1
+}
+
+// setOrder truncates the level at es[kk] and sets its estimate.
+func (lv *levelX) setOrder(kk int) {
+	lv.ByOrder = lv.es[:kk+1]
+	lv.E = lv.es[kk]
+	lv.Order = 2 * kk
+	if len(lv.es) == 1 && lv.firstErr > 0 {
+		lv.errOrd = lv.firstErr
+	} else {
+		lv.errOrd = orderErr(lv.es, kk, lv.nearTop)
+	}
+	lv.Err = lv.errOrd + lv.rootTol
+	const noNext = "no next-order energy: the estimate uses the last change"
+	var ws []string
+	for _, w := range lv.Warnings {
+		if w != noNext {
+			ws = append(ws, w)
+		}
+	}
+	if len(lv.es) > 1 && len(lv.es) <= kk+1 {
+		ws = append(ws, noNext)
+	}
+	lv.Warnings = ws
+	lv.Method = fmt.Sprintf("two wells, uniform parabolic connection through the barrier, phase integrals to order %d", lv.Order)
+	if kk < lv.maxK && kk+1 < len(lv.es) && lv.Status == Success {
+		lv.Status = LeastTerm
+	}
 }
 
 // phasesAbove computes the phase integrals above the barrier top, where the
@@ -545,7 +706,11 @@ func (tw *twoWell) phasesAbove(E float64, usePhi bool) (coupled, error) {
 		return c, errors.New("levels: barrier top is not quadratic")
 	}
 	z := complex(tw.xb, math.Sqrt((E-tw.vtop)/k))
+	// Just above the top the pair is nearly double and rounding limits z to
+	// about eps·|Q|/|Q′| ≫ 1e-14 of the interval: Newton is also done when
+	// its steps stop shrinking at a small fraction of Im z.
 	ok := false
+	prev := math.Inf(1)
 	for it := 0; it < 60; it++ {
 		q := p.Q.Taylor(z, 1)
 		if q[1] == 0 {
@@ -553,10 +718,12 @@ func (tw *twoWell) phasesAbove(E float64, usePhi bool) (coupled, error) {
 		}
 		dz := q[0] / q[1]
 		z -= dz
-		if cmplx.Abs(dz) < 1e-14*(math.Abs(b.x-a.x)) {
+		adz := cmplx.Abs(dz)
+		if adz < 1e-14*(math.Abs(b.x-a.x)) || it >= 3 && adz > prev/2 && adz < 1e-8*math.Abs(imag(z)) {
 			ok = true
 			break
 		}
+		prev = adz
 	}
 	if !ok || !(imag(z) > 0) || real(z) <= a.x || real(z) >= b.x {
 		return c, errors.New("levels: complex turning points above the barrier top not found")
@@ -599,7 +766,12 @@ func (tw *twoWell) levelAbove(N int, set Settings) (levelX, error) {
 			}
 			return p - math.Pi*float64(N+1)
 		}
+		// Right at the top the nearly double turning points may not be
+		// resolved: start a little higher then.
 		lo := tw.vtop + 1e-9*span
+		for k := 0; k < 5 && math.IsNaN(g(lo)); k++ {
+			lo = tw.vtop + (lo-tw.vtop)*10
+		}
 		if v := g(lo); !(v < 0) {
 			return 0, fmt.Errorf("levels: level %d: no root at the barrier top", N)
 		}
@@ -652,13 +824,14 @@ func (tw *twoWell) levelAbove(N int, set Settings) (levelX, error) {
 	lv.N, lv.E, lv.ByOrder, lv.Order = N, e, []float64{e}, 0
 	lv.es = []float64{e}
 	lv.nearTop = true
+	lv.above = true
 	lv.rootTol = xtol
-	lv.fUnc, lv.phiUnc = tw.mappingUncertainty(e, c)
+	phiUnc := tw.topMappingUncertainty(e, c)
 	dA := c.d1 + c.d2
 	lv.errOrd = math.Abs(e - e0)
 	lv.Err = lv.errOrd + xtol
 	if dA > 0 {
-		lv.Err += 2 * lv.phiUnc / dA
+		lv.Err += 2 * phiUnc / dA
 	}
 	lv.Turning = [2]float64{c.t[0], c.t[3]}
 	lv.Maslov = maslov(end{wall: c.wallL}, end{wall: c.wallR})

@@ -27,8 +27,8 @@ func ExampleSolve() {
 	}
 	// Output:
 	// n= 0  E=0.980766 ± 1.7e-01  order 2  μ=2  ω=2.3847
-	// n= 3  E=11.644779 ± 3.6e-05  order 4  μ=2  ω=4.4266
-	// n=10  E=50.256255 ± 7.8e-08  order 4  μ=2  ω=6.3802
+	// n= 3  E=11.644779 ± 4.9e-05  order 4  μ=2  ω=4.4266
+	// n=10  E=50.256255 ± 1.6e-07  order 4  μ=2  ω=6.3802
 }
 
 // The tunnel splitting of the double well V = (x² − 1)² for ħ = 0.15, m = 1,
@@ -53,6 +53,6 @@ func ExampleDoublets() {
 	fmt.Printf("ħω = %.4f\n", w.Hbar*math.Sqrt(8))
 	// Output:
 	// E = 0.20611358, 0.20612682
-	// splitting 1.32455e-05 ± 3.2e-08
+	// splitting 1.32455e-05 ± 3.1e-08
 	// ħω = 0.4243
 }

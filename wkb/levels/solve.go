@@ -56,7 +56,7 @@ func (s Status) String() string {
 type Level struct {
 	N       int        // quantum number (number of nodes)
 	E       float64    // energy at the order used
-	Err     float64    // error estimate of E: the least (or next) term, converted by dE = δ/(∂Phase/∂E); +Inf if none could be computed
+	Err     float64    // error estimate of E: the least term, or twice the next one while the terms still decrease, converted by dE = δ/(∂Phase/∂E); +Inf if none could be computed
 	Order   int        // order of the phase series used (0 is Bohr–Sommerfeld)
 	ByOrder []float64  // energies at orders 0, 2, 4, … up to MaxOrder (fewer if the series diverged first)
 	Maslov  int        // Maslov index μ: 2, 3 or 4
@@ -138,6 +138,15 @@ func maslov(a, b end) int {
 // solveOne finds level n: Bohr–Sommerfeld by bracketing, then each higher
 // order from the previous one.
 func solveOne(g *geometry, n int, set Settings) (Level, error) {
+	lv, _, err := solveNext(g, n, set)
+	return lv, err
+}
+
+// solveNext is solveOne that also returns the energy at the order after
+// the one used, E − δ/(∂Phase/∂E) with δ the signed next term (NaN if
+// there is none), so that differences of levels can be judged order by
+// order.
+func solveNext(g *geometry, n int, set Settings) (Level, float64, error) {
 	w := g.w
 	// Target π(n + μ/4): μ depends on the ends, which depend on E.
 	firstAt := func(E float64) (float64, end, end, error) {
@@ -163,14 +172,14 @@ func solveOne(g *geometry, n int, set Settings) (Level, error) {
 	var lastErr error
 	for k := 0; ; k++ {
 		if k > 400 {
-			return Level{}, fmt.Errorf("levels: level %d: no energy bracket found", n)
+			return Level{}, math.NaN(), fmt.Errorf("levels: level %d: no energy bracket found", n)
 		}
 		f, _, _, err := firstAt(hi)
 		if err != nil {
 			lastErr = err
 			bad = hi
 			if bad-lo <= 1e-12*math.Max(scale, math.Abs(lo)) {
-				return Level{}, fmt.Errorf("levels: level %d: %w", n, lastErr)
+				return Level{}, math.NaN(), fmt.Errorf("levels: level %d: %w", n, lastErr)
 			}
 			hi = (lo + bad) / 2
 			continue
@@ -184,7 +193,7 @@ func solveOne(g *geometry, n int, set Settings) (Level, error) {
 		} else {
 			hi = (lo + bad) / 2
 			if bad-lo <= 1e-12*math.Max(scale, math.Abs(lo)) {
-				return Level{}, fmt.Errorf("levels: level %d: %w", n, lastErr)
+				return Level{}, math.NaN(), fmt.Errorf("levels: level %d: %w", n, lastErr)
 			}
 		}
 	}
@@ -202,14 +211,14 @@ func solveOne(g *geometry, n int, set Settings) (Level, error) {
 	}, lo, hi, set.Tol*math.Max(scale, math.Abs(hi)))
 	a, b, err := g.region(e0, g.xmin)
 	if err != nil {
-		return Level{}, fmt.Errorf("levels: level %d: %w", n, err)
+		return Level{}, math.NaN(), fmt.Errorf("levels: level %d: %w", n, err)
 	}
 	mu := maslov(a, b)
 	lv.Maslov = mu
 	target := math.Pi * (float64(n) + float64(mu)/4)
 	_, dph, _, err := firstOrder(w, e0, a, b)
 	if err != nil {
-		return Level{}, fmt.Errorf("levels: level %d: %w", n, err)
+		return Level{}, math.NaN(), fmt.Errorf("levels: level %d: %w", n, err)
 	}
 	if !rootOK {
 		lv.Status = RootLimit
@@ -275,7 +284,7 @@ func solveOne(g *geometry, n int, set Settings) (Level, error) {
 	for j := 1; j <= K; j++ {
 		ev, err := at(E)
 		if err != nil {
-			return firstOnly(err), nil
+			return firstOnly(err), math.NaN(), nil
 		}
 		f := func(x float64) float64 {
 			ev, err := at(x)
@@ -326,7 +335,7 @@ func solveOne(g *geometry, n int, set Settings) (Level, error) {
 	// orders 2…2K+2.
 	evK, err := at(E)
 	if err != nil {
-		return firstOnly(err), nil
+		return firstOnly(err), math.NaN(), nil
 	}
 	least := 1
 	for k := 2; k <= K+1; k++ {
@@ -338,12 +347,12 @@ func solveOne(g *geometry, n int, set Settings) (Level, error) {
 	lv.E = lv.ByOrder[least-1]
 	evL, err := at(lv.E)
 	if err != nil {
-		return firstOnly(err), nil
+		return firstOnly(err), math.NaN(), nil
 	}
 	a, b = evL.a, evL.b
 	_, dph, _, err = firstOrder(w, lv.E, a, b)
 	if err != nil {
-		return Level{}, fmt.Errorf("levels: level %d: %w", n, err)
+		return Level{}, math.NaN(), fmt.Errorf("levels: level %d: %w", n, err)
 	}
 	var qerr float64
 	for k := 0; k < least; k++ {
@@ -357,7 +366,15 @@ func solveOne(g *geometry, n int, set Settings) (Level, error) {
 			lv.BeyondZero = z
 		}
 	}
-	lv.Err = (math.Abs(evL.terms[least])+qerr)/dph + lv.Beyond + set.Tol*math.Max(scale, math.Abs(lv.E))
+	// The remainder of the series: at its least term (optimal truncation)
+	// about the least term itself; truncated at MaxOrder while the terms
+	// still decrease, the next term plus the rest beyond it, which is at
+	// most about the next term again.
+	tail := math.Abs(evL.terms[least])
+	if least == K+1 {
+		tail *= 2
+	}
+	lv.Err = (tail+qerr)/dph + lv.Beyond + set.Tol*math.Max(scale, math.Abs(lv.E))
 	if least <= K && lv.Status == Success {
 		lv.Status = LeastTerm
 	}
@@ -374,7 +391,7 @@ func solveOne(g *geometry, n int, set Settings) (Level, error) {
 	if g.innerMaximum(a.x, b.x) {
 		lv.Warnings = append(lv.Warnings, barrierInside)
 	}
-	return lv, nil
+	return lv, lv.E - evL.terms[least]/dph, nil
 }
 
 const severalWells = "another classically allowed region exists at this energy (several wells): the single-well result ignores tunnelling; see Doublets"
