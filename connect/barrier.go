@@ -8,6 +8,7 @@ import (
 	"gonum.org/v1/gonum/integrate/quad"
 
 	"github.com/turnpoint/turnpoint/wkb"
+	"github.com/turnpoint/turnpoint/wkb/special"
 )
 
 // nearest returns the distance from z to the closest of others other than z.
@@ -63,28 +64,36 @@ func (e *element) setupAnchors(p wkb.Problem, a, b float64, others []complex128,
 		}
 		rho1 := 0.45 * math.Min(nearest(t1, others), left)
 		rho2 := 0.45 * math.Min(nearest(t2, others), right)
-		c1, c2 := x1-rho1, x2+rho2
-		fp1, err := finitePart(p, t1, complex(c1, 0), cmplx.Sqrt(p.Q.Eval(complex(c1, 0))), K, tol)
+		onAxis := func(x, dir float64) func(float64) (complex128, complex128, error) {
+			return func(rho float64) (complex128, complex128, error) {
+				c := complex(x+dir*rho, 0)
+				return c, cmplx.Sqrt(p.Q.Eval(c)), nil
+			}
+		}
+		fp1, c1, err := finitePartShrink(p, t1, rho1, onAxis(x1, -1), K, tol)
 		if err != nil {
 			return err
 		}
-		fp2, err := finitePart(p, t2, complex(c2, 0), cmplx.Sqrt(p.Q.Eval(complex(c2, 0))), K, tol)
+		fp2, c2, err := finitePartShrink(p, t2, rho2, onAxis(x2, +1), K, tol)
 		if err != nil {
 			return err
 		}
-		e.left = anchor{z: t1, base: c1, g: fp1.val, gErr: fp1.err}
-		e.right = anchor{z: t2, base: c2, g: fp2.val, gErr: fp2.err}
+		e.left = anchor{z: t1, base: real(c1), g: fp1.val, gErr: fp1.err}
+		e.right = anchor{z: t2, base: real(c2), g: fp2.val, gErr: fp2.err}
 		return nil
 	}
 	x := real(t1)
-	rho := 0.45 * nearest(t1, others)
-	c := t1 - complex(0, rho)
 	r0 := cmplx.Sqrt(p.Q.Eval(complex(x, 0)))
-	vert, err := integratePath(p, segment(complex(x, 0), c), r0, K, tol)
-	if err != nil {
-		return err
-	}
-	fp, err := finitePart(p, t1, c, vert.root, K, tol)
+	var vert *pathResult
+	fp, _, err := finitePartShrink(p, t1, 0.45*nearest(t1, others), func(rho float64) (complex128, complex128, error) {
+		c := t1 - complex(0, rho)
+		var err error
+		vert, err = integratePath(p, segment(complex(x, 0), c), r0, K, tol)
+		if err != nil {
+			return 0, 0, err
+		}
+		return c, vert.root, nil
+	}, K, tol)
 	if err != nil {
 		return err
 	}
@@ -211,22 +220,49 @@ type composer struct {
 // being the part of φ's large-ε expansion the finite-part phases hold, to
 // the same order in 1/λ.
 func (c composer) amplitudes(nTheta, nPhase int, pert float64) (r, t complex128) {
+	return c.amplitudesShift(nTheta, nPhase, pert, 0)
+}
+
+// gapTerm returns λ^(1−2k) times the order-2k phase of gap i between its
+// anchors, and its quadrature error.
+func (c composer) gapTerm(i, k int) (v, e float64) {
+	gap := c.gaps[i]
+	if k >= len(gap.val) {
+		return 0, 0
+	}
+	A, B := c.anchors[2*i], c.anchors[2*i+1]
+	z := gap.val[k]
+	e = gap.err[k]
+	if A.g != nil {
+		z -= A.g[k]
+		e += A.gErr[k]
+	}
+	if B.g != nil {
+		z += B.g[k]
+		e += B.gErr[k]
+	}
+	f := math.Pow(c.lam, float64(1-2*k))
+	return f * real(z), f * e
+}
+
+// amplitudesShift is amplitudes with the next phase order (2nPhase+2)
+// added shift times, in every gap and every parabolic phase: shift = 1 is
+// amplitudes at order nPhase+1, and shift = ±2 moves all the phases by
+// their error estimate either way, which measures how sensitive R and T
+// are to them (beside a narrow resonance between barriers they change
+// fast with the phase, and at its peak only to second order, where the
+// change at shift 1 alone is no bound).
+func (c composer) amplitudesShift(nTheta, nPhase int, pert, shift float64) (r, t complex128) {
 	m := Identity
-	for i, gap := range c.gaps {
-		A, B := c.anchors[2*i], c.anchors[2*i+1]
+	for i := range c.gaps {
 		var delta float64
-		for k := 0; k <= nPhase && k < len(gap.val); k++ {
-			v := gap.val[k]
-			e := gap.err[k]
-			if A.g != nil {
-				v -= A.g[k]
-				e += A.gErr[k]
-			}
-			if B.g != nil {
-				v += B.g[k]
-				e += B.gErr[k]
-			}
-			delta += math.Pow(c.lam, float64(1-2*k)) * (real(v) + pert*e)
+		for k := 0; k <= nPhase; k++ {
+			v, e := c.gapTerm(i, k)
+			delta += v + pert*e
+		}
+		if shift != 0 {
+			v, _ := c.gapTerm(i, nPhase+1)
+			delta += shift * v
 		}
 		m = m.Mul(Propagation(complex(delta, 0)))
 		if i < len(c.elems) && !c.elems[i].omit {
@@ -235,11 +271,21 @@ func (c composer) amplitudes(nTheta, nPhase int, pert float64) (r, t complex128)
 			for k := 0; k <= nTheta && k < len(el.thetaTerms); k++ {
 				th += el.thetaTerms[k] + pert*el.thetaQuad[k]
 			}
-			eps := make([]float64, 0, nPhase)
-			for k := 0; k < nPhase && k <= nTheta && k < len(el.thetaTerms); k++ {
-				eps = append(eps, -(el.thetaTerms[k]+pert*el.thetaQuad[k])/math.Pi)
+			series := func(n int) float64 {
+				eps := make([]float64, 0, n)
+				for k := 0; k < n && k <= nTheta && k < len(el.thetaTerms); k++ {
+					eps = append(eps, -(el.thetaTerms[k]+pert*el.thetaQuad[k])/math.Pi)
+				}
+				if n > 0 && len(eps) > 0 {
+					return phaseSeries(eps, n)
+				}
+				return 0
 			}
-			m = m.Mul(parabolicBarrierSeries(th, eps, nPhase))
+			phi := special.ParabolicPhase(-th/math.Pi) - series(nPhase)
+			if shift != 0 {
+				phi -= shift * (series(nPhase+1) - series(nPhase))
+			}
+			m = m.Mul(parabolicWithPhase(th, phi))
 		}
 	}
 	if c.terminal != nil {

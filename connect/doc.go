@@ -45,6 +45,26 @@
 // change, each times a stated safety factor 2), plus the effect of the
 // quadrature errors.
 //
+// The sensitivity to the phases is measured as well: every phase (the
+// gaps' and the parabolic ones) is moved by twice its next-order change
+// either way, and the larger change of R and T is taken where it exceeds
+// twice the change at the next order. Beside a narrow transmission
+// resonance between barriers the peak moves with the inter-barrier phase,
+// and at the peak R and T change only to second order, where the
+// next-order change alone is no bound.
+//
+// # Barrier tops
+//
+// At a barrier top (a double zero of Q on the axis), or within
+// |ε| < 0.02 of it where the composition of the two close simple zeros
+// fails (their finite-part loops become too small, and the 1/ε series of
+// the parabolic phase diverges; below |ε| = 1e-3 it is not tried), Q is
+// shifted by ±δ₀ … ±4δ₀ (|ε| = 0.05 … 0.2 for the shift) and R, T and the
+// phases of r and t are extrapolated to δ = 0; r and t are √R and √T with
+// those phases, so |r|² = R. The phases turn by about λ∫dx/(2√Q) per unit
+// δ (the time delay across the interval); that part, from the allowed
+// stretches away from the top, is taken out before the extrapolation.
+//
 // # Which complex pairs are composed
 //
 // A complex pair whose coupling e^θ is far below the accuracy of the

@@ -90,12 +90,24 @@ func (c composer) evaluate(N, K int) (*evaluation, error) {
 		rph, tph = r, t
 		ev.warns = append(ev.warns, "the next phase order is not finite: the phase error estimate excludes it")
 	}
+	// The sensitivity to the phases: every phase moved by its error
+	// estimate (twice the next order) either way (amplitudesShift). Beside a
+	// narrow resonance between barriers R and T change fast with the phase,
+	// and at its peak only to second order, where the change from the next
+	// phase order alone is no bound.
+	rP, tP := c.amplitudesShift(nInc, nPh, 0, 2)
+	rM, tM := c.amplitudesShift(nInc, nPh, 0, -2)
+	if bad(rP) || bad(tP) || bad(rM) || bad(tM) {
+		rP, tP, rM, tM = rph, tph, rph, tph
+	}
 	errOf := func(f func(r, t complex128) float64) float64 {
 		e := tail(f(th[1].r, th[1].t)-f(th[0].r, th[0].t), f(th[2].r, th[2].t)-f(th[1].r, th[1].t))
 		// The next phase order's change is an asymptotically exact
 		// estimate, like the geometric θ tail: it carries the same safety
-		// factor 2 (see tail).
-		return e + 2*math.Abs(f(rph, tph)-f(r, t)) + math.Abs(f(rq, tq)-f(r, t))
+		// factor 2 (see tail); the spread under the phase moved by that
+		// much either way is taken where it is larger.
+		ph := math.Max(2*math.Abs(f(rph, tph)-f(r, t)), math.Max(math.Abs(f(rP, tP)-f(r, t)), math.Abs(f(rM, tM)-f(r, t))))
+		return e + ph + math.Abs(f(rq, tq)-f(r, t))
 	}
 	ev.errR = errOf(func(r, _ complex128) float64 { return sq(r) }) + 1e-14*sq(r)
 	ev.errT = errOf(func(_, t complex128) float64 { return sq(t) }) + 1e-14*sq(t)

@@ -1,6 +1,7 @@
 package connect
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"math/cmplx"
@@ -69,21 +70,40 @@ type pathResult struct {
 // s = 0 node by node: [0, 1] is cut into 4 panels, and a panel whose 16-node
 // rule and the sum of the rules on its halves differ, in any term, by more
 // than tol relative to the panel's ∫|integrand| is halved again (to panels
-// of 2⁻²⁰ at most); the halves' sum is kept and the difference is the
-// error estimate. Near a turning point the higher terms are peaked at one
+// of 2⁻²⁰ at most), or by more than tol·(s1−s0) times the whole path's
+// ∫|integrand| (an absolute floor where the integrand is nearly zero); the
+// halves' sum is kept and the difference is the error estimate. Near a turning point the higher terms are peaked at one
 // end, where this refines, and nowhere else.
 func integratePath(p wkb.Problem, pth path, root0 complex128, K int, tol float64) (*pathResult, error) {
 	in := &pathIntegrator{p: p, pth: pth, K: K, tol: tol, rule: legendre(16)}
 	out := &pathResult{val: make([]complex128, K+1), err: make([]float64, K+1)}
 	hint := root0
 	const start = 4
+	var first [start]panelSum
+	var starts [start]complex128
+	in.floor = make([]float64, K+1)
 	for i := 0; i < start; i++ {
 		s0, s1 := float64(i)/start, float64(i+1)/start
 		whole, h, err := in.panel(s0, s1, hint)
 		if err != nil {
 			return nil, err
 		}
-		h, err = in.refine(s0, s1, whole, hint, 0, out)
+		first[i], starts[i] = whole, hint
+		for k, v := range whole.scale {
+			in.floor[k] += v
+		}
+		hint = h
+	}
+	// The absolute floor of the acceptance test: a panel of width w may
+	// err by tol·w times the path's whole ∫|integrand| (estimated on the
+	// first four panels), so that panels where an integrand is nearly zero
+	// (relative to its own size elsewhere) are not refined for ever.
+	for k := range in.floor {
+		in.floor[k] *= tol
+	}
+	for i := 0; i < start; i++ {
+		s0, s1 := float64(i)/start, float64(i+1)/start
+		h, err := in.refine(s0, s1, first[i], starts[i], 0, out)
 		if err != nil {
 			return nil, err
 		}
@@ -95,11 +115,12 @@ func integratePath(p wkb.Problem, pth path, root0 complex128, K int, tol float64
 
 // pathIntegrator holds the state of integratePath.
 type pathIntegrator struct {
-	p    wkb.Problem
-	pth  path
-	K    int
-	tol  float64
-	rule glRule
+	p     wkb.Problem
+	pth   path
+	K     int
+	tol   float64
+	rule  glRule
+	floor []float64 // tol × ∫|integrand| over the path, per term
 }
 
 // panelSum is the 16-node rule on one panel, per term, with ∫|integrand|.
@@ -148,7 +169,7 @@ func (in *pathIntegrator) refine(s0, s1 float64, whole panelSum, hint complex128
 	for k := range whole.val {
 		d := cmplx.Abs(left.val[k] + right.val[k] - whole.val[k])
 		change = math.Max(change, d)
-		if d > in.tol*(left.scale[k]+right.scale[k])+1e-300 {
+		if d > in.tol*(left.scale[k]+right.scale[k])+in.floor[k]*(s1-s0)+1e-300 {
 			ok = false
 		}
 	}
@@ -196,9 +217,50 @@ func finitePart(p wkb.Problem, t, c, root complex128, K int, tol float64) (*path
 		r.err[k] /= 2
 	}
 	if cmplx.Abs(r.root+root) > 0.5*cmplx.Abs(root) {
-		return nil, fmt.Errorf("connect: √Q did not change sign round the turning point %v: another zero or pole lies within %.3g of it", t, cmplx.Abs(c-t))
+		return nil, &signError{t: t, rho: cmplx.Abs(c - t)}
 	}
 	return r, nil
+}
+
+// signError reports that √Q did not change sign round a loop about a
+// turning point: the loop encloses another zero or pole (one outside the
+// search box is not listed, so the loop radius did not avoid it).
+type signError struct {
+	t   complex128
+	rho float64
+}
+
+func (e *signError) Error() string {
+	return fmt.Sprintf("connect: √Q did not change sign round the turning point %v: another zero or pole lies within %.3g of it", e.t, e.rho)
+}
+
+// shrinkTries is how often a loop radius is halved when the loop encloses
+// an unlisted zero or pole (signError) before Scatter gives up.
+const shrinkTries = 4
+
+// finitePartShrink is finitePart with the loop radius halved, up to
+// shrinkTries times, while the loop encloses another zero or pole: at(ρ)
+// returns the loop start c and the branch of √Q there for radius ρ.
+func finitePartShrink(p wkb.Problem, t complex128, rho float64, at func(rho float64) (c, root complex128, err error), K int, tol float64) (*pathResult, complex128, error) {
+	var err error
+	for try := 0; try <= shrinkTries; try++ {
+		var c, root complex128
+		c, root, err = at(rho)
+		if err != nil {
+			return nil, 0, err
+		}
+		var fp *pathResult
+		fp, err = finitePart(p, t, c, root, K, tol)
+		if err == nil {
+			return fp, c, nil
+		}
+		var se *signError
+		if !errors.As(err, &se) {
+			return nil, 0, err
+		}
+		rho /= 2
+	}
+	return nil, 0, err
 }
 
 // verticalS returns Im ∫_x^z √Q along the vertical segment from x = Re z,

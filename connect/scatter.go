@@ -110,12 +110,25 @@ type anchor struct {
 // to the error estimates (see the package comment); no warning is given
 // for them, since they do not change the figures.
 //
+// At or within |ε| < 0.02 of a barrier top (a double zero of Q on the
+// axis, or two simple zeros that close) R, T and the phases are
+// extrapolated from Q shifted by ±δ (see scatterTop and the package
+// comment), where the composition of the two zeros cannot be used. A loop
+// round a turning point that encloses a zero or pole not listed (one
+// outside the search box) is shrunk, up to four times.
+//
 // Q must be positive at a; Scatter returns an error otherwise, and if the
 // signs of Q on the axis do not match the listed real turning points. If Q
 // is not positive at b, the wave is taken to decay into the forbidden
 // region there (total reflection, t = 0, with a warning; ErrT is the leak
 // exp(−2λ∫√|Q|) from the last turning point to b).
 func Scatter(p wkb.Problem, a, b float64, points []turning.Point, s *Settings) (*Result, error) {
+	return scatter(p, a, b, points, s, true)
+}
+
+// scatter is Scatter; top enables the barrier-top treatment of two simple
+// zeros within |ε| < nearTopEps of a top (see nearTop).
+func scatter(p wkb.Problem, a, b float64, points []turning.Point, s *Settings, top bool) (*Result, error) {
 	set := Settings{MaxOrder: 2, Tol: 1e-11}
 	if s != nil {
 		if s.MaxOrder != 0 {
@@ -164,6 +177,18 @@ func Scatter(p wkb.Problem, a, b float64, points []turning.Point, s *Settings) (
 	// Classify the points.
 	scale := b - a
 	imTol := 1e-9 * scale
+	if drop, xm, q2, eps, ok := nearTop(p, a, b, points, imTol); ok && top {
+		// Close to the top the composition of the two zeros is tried first
+		// (it is the more accurate where it works, down to |ε| ≈ 1e-3 for
+		// the order-2 terms); the extrapolation from the shifted problems
+		// takes over where it fails or ε is smaller still.
+		if eps >= nearTopDirect {
+			if res, err := scatter(p, a, b, points, s, false); err == nil {
+				return res, nil
+			}
+		}
+		return scatterTop(p, a, b, points, drop, xm, q2, &set)
+	}
 	var real1 []float64
 	var others []complex128 // every listed point (with conjugates), for contour sizes
 	var upper []turning.Point
@@ -178,7 +203,8 @@ func Scatter(p wkb.Problem, a, b float64, points []turning.Point, s *Settings) (
 			x := real(z)
 			if pt.Order > 0 && x > a && x < b {
 				if pt.Order == 2 {
-					return scatterTop(p, a, b, points, i, &set)
+					q2 := real(p.Q.Taylor(complex(x, 0), 2)[2])
+					return scatterTop(p, a, b, points, []int{i}, x, q2, &set)
 				}
 				if pt.Order != 1 {
 					return nil, fmt.Errorf("connect: zero of order %d at x = %.6g on the axis: no connection formula for it", pt.Order, x)
@@ -336,12 +362,14 @@ func Scatter(p wkb.Problem, a, b float64, points []turning.Point, s *Settings) (
 		if n := len(anchors); n > 1 {
 			rho = math.Min(rho, 0.45*(lone-anchors[n-1].base))
 		}
-		c := lone - rho
-		fp, err := finitePart(p, t0, complex(c, 0), cmplx.Sqrt(p.Q.Eval(complex(c, 0))), K, set.Tol)
+		fp, c, err := finitePartShrink(p, t0, rho, func(rho float64) (complex128, complex128, error) {
+			c := complex(lone-rho, 0)
+			return c, cmplx.Sqrt(p.Q.Eval(c)), nil
+		}, K, set.Tol)
 		if err != nil {
 			return nil, err
 		}
-		anchors = append(anchors, anchor{z: t0, base: c, g: fp.val, gErr: fp.err})
+		anchors = append(anchors, anchor{z: t0, base: real(c), g: fp.val, gErr: fp.err})
 		v := AllowedLeft().Apply([2]complex128{0, 1})
 		terminal = &v
 	} else {

@@ -31,7 +31,7 @@ func BenchmarkScatterBarrierFirstOrder(b *testing.B) {
 }
 
 // BenchmarkScatterTop is U/cosh²(x) exactly at the top (a double zero on
-// the axis, split and extrapolated by scatterTop: four compositions).
+// the axis, split and extrapolated by scatterTop: 2·topLevels compositions).
 func BenchmarkScatterTop(b *testing.B) {
 	w := wkb.Well{V: sech2(1, 1, 0), Mass: 1, Hbar: 0.1}
 	p := w.Problem(1)

@@ -5,11 +5,20 @@ import (
 	"math"
 )
 
+// roundingFloor is the relative difference below which a WKB figure and
+// its numerical check count as equal whatever their estimates say: about
+// 10⁴ units of rounding, the accuracy to which a long double-precision
+// computation can be trusted (common practice, not a derived bound).
+const roundingFloor = 2e-12
+
 // compare judges a WKB figure against its numerical check: they agree when
 // their difference is within the sum of the two stated error estimates.
 func compare(wkb, errWKB, num, errNum float64) *Verdict {
 	diff := math.Abs(wkb - num)
-	allowed := errWKB + errNum
+	// Two double-precision figures are not compared beyond roundingFloor
+	// relative: below it the difference is rounding, which neither error
+	// estimate (next term, two tolerances) is built to see.
+	allowed := errWKB + errNum + roundingFloor*math.Abs(num)
 	scale := math.Abs(num)
 	if scale == 0 {
 		scale = 1

@@ -36,6 +36,21 @@
 // grow with λ. It handles real turning points; T comes out to about 1e-13
 // relative, r to about 1e-15 absolute, so a tiny R is not resolved.
 //
+// Jets at a point describe K² only within their radius of convergence,
+// however flat they look (the tail of a tanh layer has poles at π/2 of its
+// width from every real point), so every jump and every Taylor step is kept
+// within half the radius estimated from the decay of the coefficients of
+// (K²)′/K², and K² is evaluated at points along it (16 for a jump, 4 for a
+// step, the landing point with its derivative) and compared with the series
+// from the start: a feature in the middle of a flat-looking stretch ends
+// the step before it. An entire K² whose feature is invisible in the jets
+// (a narrow Gaussian far away, whose coefficients underflow) could still
+// fall between the samples, so when the main run jumped the check run takes
+// no jumps at all, if that costs at most 20000 steps (about a step per
+// three radians of phase), and otherwise caps its jumps at 1/16 of the
+// interval; when the jump-free check disagrees with the main run by more
+// than √Tol, the main run is repeated without jumps.
+//
 // ComplexPath integrates the Riccati equation for the local ratio σ of the
 // reflected to the incident first-order wave along a path that rises from
 // b into the upper half plane, runs at a height H below the nearest zero or
@@ -44,7 +59,9 @@
 // (R = 1e-30 and far below) is obtained to nearly full relative accuracy
 // instead of drowning in rounding. H starts at 0.65 of the distance to the
 // nearest singularity (given by the caller or found by a scan of the radius
-// of convergence of (K²)′/K² along the axis) and is then adjusted by coarse
+// of convergence of (K²)′/K² along the axis, with samples of K² between
+// the scan points and a finer search around the closest approach) and is
+// then adjusted by coarse
 // runs so that the free reflected wave on the path stays near 1e3 times the
 // incident one: more height would cost digits of T, less would cost digits
 // of R.
@@ -70,5 +87,9 @@
 //
 // Every result is computed twice (two tolerances; for ComplexPath also two
 // path heights) and the difference, plus an accumulated rounding estimate
-// and the truncation of the end waves, is reported as its error.
+// and the truncation of the end waves, is reported as its error. On the
+// real axis the rounding estimate includes the conditioning of the
+// problem: rounding made where y is larger than at a (between two barriers
+// near a narrow resonance, where T's condition number is about E/Γ) is
+// multiplied by (max |y| / |y(a)|)².
 package direct

@@ -13,6 +13,16 @@ const (
 	jumpSeries  = 16 // degree of the Taylor series of p and γ over a jump
 	jumpMinRad  = 60 // a jump must span at least this many radians of phase to pay off
 	jumpMaxGrow = 200.0
+	// jumpRadius is the largest jump, as a fraction of the radius of
+	// convergence of the jets of K² at its start: beyond that radius the
+	// local data say nothing about K², however flat they look.
+	jumpRadius = 0.5
+	// jumpSamples is the number of points along a jump at which K² is
+	// evaluated and compared with its Taylor series from the start (the
+	// last one is the landing point), so that a feature of an entire K²
+	// that is invisible in the jets at the start (a Gaussian far away,
+	// whose coefficients underflow) cannot be stepped over.
+	jumpSamples = 16
 )
 
 // wkbJump tries to carry (y, y′) from z over a distance of up to hmax in
@@ -45,7 +55,7 @@ func wkbJump(p wkb.Problem, z, dir complex128, hmax float64, y, dy complex128, r
 		d *= dir
 	}
 	p0 := pw[0]
-	h = stepFor(pt, cmplx.Abs(p0), r.tol, hmax)
+	h = stepFor(pt, cmplx.Abs(p0), r.tol, ho.limit(hmax, r))
 	// y′/y = ±ip − p′/(2p) needs p′ to tol·|p|².
 	h = stepFor(alongPath(dp, dir), cmplx.Abs(p0*p0), r.tol, h)
 	if ip := math.Abs(imag(p0)); ip*h > jumpMaxGrow {
@@ -58,6 +68,7 @@ func wkbJump(p wkb.Problem, z, dir complex128, hmax float64, y, dy complex128, r
 		}
 		h /= 2
 	}
+	h = ho.sampled(p, z, dir, h, r.tol)
 	if cmplx.Abs(p0)*h < jumpMinRad {
 		return 0, y, dy, false
 	}
@@ -97,6 +108,8 @@ func wkbJump(p wkb.Problem, z, dir complex128, hmax float64, y, dy complex128, r
 	rr := (eps*(4+cmplx.Abs(Phi)) + ho.noise*h) * big / ns1
 	r.round += rr
 	r.lastErr = bound(h)
+	r.phase += math.Abs(real(Phi))
+	r.track(ns1)
 	yn, dyn = rescale(yn, dyn, ns1, r)
 	return h, yn, dyn, true
 }
@@ -107,6 +120,8 @@ type hoSeries struct {
 	K, c, p jet.Series // order jumpSeries+2
 	dp      jet.Series // order jumpSeries+1
 	gamma   jet.Series // order jumpSeries
+	k2      jet.Series // K² itself, order 2·jumpOrder+2+jumpSeries
+	radius  float64    // radius of convergence of the jets of K² at the start (zeros and poles)
 	// noise bounds the rounding of γ: δ is a sum of O(1) terms that cancel
 	// to O(λ^(−2M)), so |γ| computed below noise says only that the true γ
 	// is no larger than about that.
@@ -120,7 +135,8 @@ type hoSeries struct {
 func newHOSeries(p wkb.Problem, z complex128, prev complex128, havePrev bool, hmax float64) (hoSeries, bool) {
 	const M, ns = jumpOrder, jumpSeries
 	L := 2*M + 2 + ns
-	sk := jet.Sqrt(kSquared(p, z, L))
+	k2 := kSquared(p, z, L)
+	sk := jet.Sqrt(k2)
 	if havePrev && cmplx.Abs(sk[0]-prev) > cmplx.Abs(sk[0]+prev) {
 		sk = jet.Neg(sk)
 	}
@@ -153,7 +169,64 @@ func newHOSeries(p wkb.Problem, z complex128, prev complex128, havePrev bool, hm
 	}
 	noise := 8 * eps * (2*cmplx.Abs(Kn[0]*cn[0]) + cmplx.Abs(cn[0]*cn[0]) +
 		0.75*cmplx.Abs(lp[0]*lp[0]) + 0.5*cmplx.Abs(ddp[0]/pn[0])) / (2 * cmplx.Abs(pn[0]))
-	return hoSeries{K: K, c: c, p: pw, dp: dp, gamma: gamma, noise: noise}, true
+	rad := radius(jet.Div(deriv(k2), trunc(k2, L-1)))
+	return hoSeries{K: K, c: c, p: pw, dp: dp, gamma: gamma, k2: k2, radius: rad, noise: noise}, true
+}
+
+// limit caps the length of a jump: at jumpRadius of the radius of
+// convergence of the jets at its start (the local information is valid no
+// further) and at the cap of the run.
+func (ho *hoSeries) limit(h float64, r *run) float64 {
+	h = math.Min(h, jumpRadius*ho.radius)
+	if r.jumpCap > 0 {
+		h = math.Min(h, r.jumpCap)
+	}
+	return h
+}
+
+// sampled re-checks a jump of length h against K² evaluated at
+// jumpSamples points along it (see alongCheck).
+func (ho *hoSeries) sampled(p wkb.Problem, z, dir complex128, h, tol float64) float64 {
+	return alongCheck(p, z, dir, ho.k2, h, tol, jumpSamples)
+}
+
+// alongCheck re-checks a step of length h from z in direction dir against
+// K² evaluated at n points along it and (K²)′ at the landing point: the
+// step is valid only as far as k2, the Taylor series of K² at z, predicts
+// them to within tol (relative to the size of the terms, at least 1e-14
+// for the rounding of the evaluation). It returns the length up to the
+// last point that passed, rechecking a shortened step a few times.
+func alongCheck(p wkb.Problem, z, dir complex128, k2 jet.Series, h, tol float64, n int) float64 {
+	tol = math.Max(10*tol, 1e-14)
+	d1 := deriv(k2)
+	for iter := 0; iter < 3; iter++ {
+		fail := 0
+		for j := 1; j <= n; j++ {
+			t := dir * complex(h*float64(j)/float64(n), 0)
+			m := 0
+			if j == n {
+				m = 1
+			}
+			got := kSquared(p, z+t, m)
+			want, big := horner(k2, t)
+			scale := cmplx.Abs(got[0]) + big
+			ok := finite(got[0]) && cmplx.Abs(got[0]-want) <= tol*scale
+			if ok && m == 1 {
+				dw, dbig := horner(d1, t)
+				ds := cmplx.Abs(got[1]) + dbig + scale/h
+				ok = finite(got[1]) && cmplx.Abs(got[1]-dw) <= tol*ds
+			}
+			if !ok {
+				fail = j
+				break
+			}
+		}
+		if fail == 0 {
+			return h
+		}
+		h *= math.Max(float64(fail-1), 0.5) / float64(n)
+	}
+	return h
 }
 
 // majorant returns Σ |γ_j| h^(j+1)/(j+1), a bound of ∫_0^h |γ| along any
@@ -198,7 +271,7 @@ func sigmaJump(p wkb.Problem, z, dir complex128, hmax float64, st *sigmaState, r
 		pt[j] = ho.p[j] * d
 		d *= dir
 	}
-	h := stepFor(pt, cmplx.Abs(p0), r.tol, hmax)
+	h := stepFor(pt, cmplx.Abs(p0), r.tol, ho.limit(hmax, r))
 	// The conversions at the far end need c = p − K and c′ to relative
 	// accuracy (they carry the local, adiabatic part of σ), which in a
 	// tail where c ∝ e^(−x/w) limits the jump far more than p does.
@@ -238,6 +311,7 @@ func sigmaJump(p wkb.Problem, z, dir complex128, hmax float64, st *sigmaState, r
 		}
 		h /= 2
 	}
+	h = ho.sampled(p, z, dir, h, r.tol)
 	if cmplx.Abs(p0)*h < jumpMinRad {
 		return 0, false
 	}
@@ -266,6 +340,7 @@ func sigmaJump(p wkb.Problem, z, dir complex128, hmax float64, st *sigmaState, r
 		ho.noise*h*u*u*math.Exp(2*grow*h)*wt
 	r.round += rr
 	r.lastErr = excess(h) * u * u / budget(h)
+	r.phase += math.Abs(real(phiP))
 	st.sigma, st.ell, st.S = s1, ell, S
 	st.sqPrev, st.havePrev = K1, true
 	st.maxSigma = math.Max(st.maxSigma, cmplx.Abs(s1))

@@ -25,17 +25,17 @@ type geometry struct {
 // between two pairs of late coefficients, ((|c_k1|+|c_k1+1|)/(|c_k2|+|c_k2+1|))^(1/(k2−k1)).
 // Summing neighbours keeps the estimate from failing where a conjugate pair
 // of singularities makes single coefficients nearly vanish. +Inf when the
-// late coefficients vanish (entire function, or a polynomial).
+// late coefficients vanish (entire function, or a polynomial) or are too
+// close to underflow (below 1e-280, where they have lost their digits) to
+// say anything.
 func radius(c jet.Series) float64 {
 	n := len(c) - 1
 	k1, k2 := n/2, n-1
 	num := cmplx.Abs(c[k1]) + cmplx.Abs(c[k1+1])
 	den := cmplx.Abs(c[k2]) + cmplx.Abs(c[k2+1])
-	if den == 0 || den < 1e-300*num {
+	const floor = 1e-280
+	if den < floor || num < floor || den < 1e-300*num {
 		return math.Inf(1)
-	}
-	if num == 0 {
-		return 0
 	}
 	return math.Pow(num/den, 1/float64(k2-k1))
 }
@@ -44,9 +44,21 @@ func radius(c jet.Series) float64 {
 // of K² = λ²Q + Q1: the radius of convergence of (K²)′/K², which has simple
 // poles at both. It also returns K²(x).
 func singDistance(p wkb.Problem, x float64) (d float64, k20 complex128) {
-	k2 := kSquared(p, complex(x, 0), scanOrder+1)
-	return radius(jet.Div(deriv(k2), trunc(k2, scanOrder))), k2[0]
+	d, k2 := singDistanceJet(p, x)
+	return d, k2[0]
 }
+
+// singDistanceJet is singDistance, returning the jet of K² at x.
+func singDistanceJet(p wkb.Problem, x float64) (float64, jet.Series) {
+	k2 := kSquared(p, complex(x, 0), scanOrder+1)
+	return radius(jet.Div(deriv(k2), trunc(k2, scanOrder))), k2
+}
+
+// scanSamples is the number of points along a step of the scan at which K²
+// is compared with its series from the start of the step (alongCheck): an
+// entire K² with a narrow feature far from x (a Gaussian) has jets at x
+// that look constant.
+const scanSamples = 16
 
 // scanAxis walks from a to b in steps of half the local distance to the
 // nearest singularity, so that no real zero can be stepped over, and records
@@ -58,7 +70,8 @@ func scanAxis(p wkb.Problem, a, b float64) geometry {
 	x := a
 	prevSign := 0.0
 	for i := 0; i < 100000; i++ {
-		d, q0 := singDistance(p, x)
+		d, k2 := singDistanceJet(p, x)
+		q0 := k2[0]
 		if !finite(q0) || math.IsNaN(d) {
 			g.realZero = true
 			return g
@@ -80,9 +93,15 @@ func scanAxis(p wkb.Problem, a, b float64) geometry {
 			return g
 		}
 		if x >= b {
-			return g
+			return refineMin(p, a, b, g)
 		}
-		x = math.Min(b, x+math.Min(0.5*d, span/32))
+		h := math.Min(b-x, math.Min(0.5*d, span/32))
+		if hs := alongCheck(p, complex(x, 0), 1, k2, h, 1e-12, scanSamples); hs < h {
+			// Something the jets at x did not show: step to just before
+			// it, where they will.
+			h = math.Max(hs, h/scanSamples)
+		}
+		x = math.Min(b, x+h)
 	}
 	g.realZero = true // did not finish: treat as unsafe for the raised path
 	return g
@@ -115,6 +134,46 @@ func givenGeometry(p wkb.Problem, a, b float64, pts []complex128) geometry {
 		if real(q0) <= 0 {
 			g.realZero = true
 		}
+	}
+	return g
+}
+
+// refineMin resamples the neighbourhood of the closest approach found by
+// scanAxis on finer and finer grids: stepping by half the local distance
+// can pass a singularity at a point where the distance is still about
+// twice its height, and the path height is a fraction of that distance.
+func refineMin(p wkb.Problem, a, b float64, g geometry) geometry {
+	if math.IsInf(g.dmin, 1) {
+		return g
+	}
+	// The estimates of radius scatter by a few per cent: only a clearly
+	// closer approach moves the minimum.
+	s := g.dmin / 4
+	for pass := 0; pass < 3; pass++ {
+		c := g.at
+		bd, bx := g.dmin, g.at
+		for j := -8; j <= 8; j++ {
+			x := c + s*float64(j)
+			if j == 0 || x < a || x > b {
+				continue
+			}
+			d, q0 := singDistance(p, x)
+			if !finite(q0) || math.IsNaN(d) || real(q0) <= 0 || d < 1e-4*(b-a) {
+				g.realZero = true
+				return g
+			}
+			if aq := cmplx.Abs(q0); aq < g.qmin {
+				g.qmin = aq
+			}
+			if d < bd {
+				bd, bx = d, x
+			}
+		}
+		if bd > 0.95*g.dmin {
+			return g
+		}
+		g.dmin, g.at = bd, bx
+		s /= 4
 	}
 	return g
 }

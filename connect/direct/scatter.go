@@ -1,6 +1,7 @@
 package direct
 
 import (
+	"errors"
 	"math"
 	"math/cmplx"
 
@@ -29,6 +30,8 @@ type amplitudes struct {
 	maxSigma  float64 // largest |σ| on the complex path
 	maxImS    float64 // largest Im ∫_b K on it
 	kAtMax    float64 // |K| there
+	jumped    int     // WKB jumps taken
+	phase     float64 // phase ∫|Re K| covered
 }
 
 // Scatter computes the reflection and transmission of a wave incident from
@@ -108,7 +111,7 @@ func Scatter(p wkb.Problem, a, b float64, s *Settings) (*Result, error) {
 		steps, rEst := 0, 0.0
 		// Search the height with coarse runs (only |r| and Im S matter).
 		for try := 0; set.Height == 0 && try < 3; try++ {
-			probe, err := complexPath(p, ea, eb, height, searchTol, set.MaxSteps, rEst)
+			probe, err := complexPath(p, ea, eb, height, searchTol, set.MaxSteps, rEst, true)
 			if err != nil {
 				return nil, err
 			}
@@ -145,7 +148,7 @@ func Scatter(p wkb.Problem, a, b float64, s *Settings) (*Result, error) {
 		// strongly suppressed.
 		var best *Result
 		for try := 0; try < 3; try++ {
-			main, err = complexPath(p, ea, eb, height, fine, set.MaxSteps, rEst)
+			main, err = complexPath(p, ea, eb, height, fine, set.MaxSteps, rEst, true)
 			if err != nil {
 				return nil, err
 			}
@@ -154,9 +157,36 @@ func Scatter(p wkb.Problem, a, b float64, s *Settings) (*Result, error) {
 			// near the limit of resolution a much lower check would measure
 			// its own error, not that of the main run.
 			hc := math.Max(checkHeight*height, height-math.Log(100)/(2*main.kAtMax))
-			check, err = complexPath(p, ea, eb, hc, set.Tol, set.MaxSteps, rEst)
-			if err != nil {
-				return nil, err
+			// As on the real axis (realAxisPair), the check takes no
+			// jumps when that is affordable, so that a feature a jump
+			// stepped over shows up in the difference; the main run is
+			// then repeated without jumps if they disagree beyond √Tol.
+			noJump := false
+			if est := int(main.phase/3) + main.steps; main.jumped > 0 && est <= noJumpBudget {
+				check, err = complexPath(p, ea, eb, hc, set.Tol, min(set.MaxSteps, 2*est+1000), rEst, false)
+				var ce *ConvergenceError
+				switch {
+				case err == nil:
+					noJump = true
+				case errors.As(err, &ce) && ce.Status == StepLimit:
+					steps += ce.Steps
+				default:
+					return nil, err
+				}
+			}
+			if noJump && disagree(main, check, math.Sqrt(set.Tol)) {
+				redo, err := complexPath(p, ea, eb, height, fine, set.MaxSteps, rEst, false)
+				if err != nil {
+					return nil, err
+				}
+				redo.steps += main.steps
+				main = redo
+			}
+			if !noJump {
+				check, err = complexPath(p, ea, eb, hc, set.Tol, set.MaxSteps, rEst, true)
+				if err != nil {
+					return nil, err
+				}
 			}
 			res := combine(main, check, set.Tol, method, height, M, endErr)
 			steps += res.Steps
@@ -175,11 +205,7 @@ func Scatter(p wkb.Problem, a, b float64, s *Settings) (*Result, error) {
 		best.Steps = steps
 		return checkFinite(best)
 	default:
-		main, err = realAxis(p, ea, eb, fine, set.MaxSteps)
-		if err != nil {
-			return nil, err
-		}
-		check, err = realAxis(p, ea, eb, set.Tol, set.MaxSteps)
+		main, check, err = realAxisPair(p, ea, eb, fine, &set)
 		if err != nil {
 			return nil, err
 		}
@@ -269,11 +295,68 @@ func validate(p wkb.Problem, a, b float64, s *Settings) error {
 	return nil
 }
 
+// noJumpBudget is the largest number of Taylor steps spent on the
+// jump-free check run of the real-axis method.
+const noJumpBudget = 20000
+
+// realAxisPair runs the real-axis method at tolerance fine (the result)
+// and at set.Tol (the check).
+//
+// A WKB jump is judged from local data at its start and re-checked at a
+// few points along it, which an isolated feature of an entire K² that is
+// invisible there (a narrow Gaussian far from the jump's start) can still
+// slip through; both tolerances would jump alike. So when the main run
+// jumped, the check run takes no jumps when that is affordable (its cost,
+// about a step per three radians of phase, within noJumpBudget), and
+// otherwise caps the jumps at 1/16 of the interval, so that the two runs
+// land at different points. If the jump-free check disagrees with the main
+// run by more than √Tol, the main run is repeated without jumps; otherwise
+// the difference enters the error estimate as usual.
+func realAxisPair(p wkb.Problem, ea, eb endWave, fine float64, set *Settings) (main, check amplitudes, err error) {
+	main, err = realAxis(p, ea, eb, fine, set.MaxSteps, true, 0)
+	if err != nil {
+		return main, check, err
+	}
+	if main.jumped > 0 {
+		est := int(main.phase/3) + main.steps
+		if est <= noJumpBudget {
+			check, err = realAxis(p, ea, eb, set.Tol, min(set.MaxSteps, 2*est+1000), false, 0)
+			if err == nil {
+				if disagree(main, check, math.Sqrt(set.Tol)) {
+					redo, err := realAxis(p, ea, eb, fine, set.MaxSteps, false, 0)
+					if err != nil {
+						return main, check, err
+					}
+					redo.steps += main.steps
+					main = redo
+				}
+				return main, check, nil
+			}
+			var ce *ConvergenceError
+			if !errors.As(err, &ce) || ce.Status != StepLimit {
+				return main, check, err
+			}
+			main.steps += ce.Steps
+		}
+	}
+	check, err = realAxis(p, ea, eb, set.Tol, set.MaxSteps, true, (eb.x-ea.x)/16)
+	return main, check, err
+}
+
+// disagree reports whether two runs differ by more than tol in r
+// (absolutely) or in t (relatively).
+func disagree(u, v amplitudes, tol float64) bool {
+	at := math.Max(cmplx.Abs(u.t), cmplx.Abs(v.t))
+	return cmplx.Abs(u.r-v.r) > tol || cmplx.Abs(u.t-v.t) > tol*at || math.Abs(u.logT-v.logT) > tol
+}
+
 // realAxis integrates y from b, where it is the transmitted higher-order
 // wave, back to a along the real axis, and decomposes it there:
 // A = W(y, v₋)/W(v₊, v₋), B = W(v₊, y)/W(v₊, v₋), r = B/A, t = 1/A.
-func realAxis(p wkb.Problem, ea, eb endWave, tol float64, maxSteps int) (amplitudes, error) {
-	r := &run{method: RealAxis.String(), tol: tol, maxSteps: maxSteps, jumps: true}
+// With jumps set it takes WKB jumps where they are valid, of length at
+// most jumpCap if that is positive.
+func realAxis(p wkb.Problem, ea, eb endWave, tol float64, maxSteps int, jumps bool, jumpCap float64) (amplitudes, error) {
+	r := &run{method: RealAxis.String(), tol: tol, maxSteps: maxSteps, jumps: jumps, jumpCap: jumpCap}
 	y, dy := eb.higherWave(p.Lambda, 1)
 	y, dy, err := integrateY(p, complex(eb.x, 0), complex(ea.x, 0), y, dy, r)
 	if err != nil {
@@ -288,10 +371,20 @@ func realAxis(p wkb.Problem, ea, eb endWave, tol float64, maxSteps int) (amplitu
 	// y was divided by e^logScale: the true A is A e^logScale, r = B/A
 	// is unchanged and t = e^(−logScale)/A (it underflows to 0 when T is
 	// below the range of float64).
-	out := amplitudes{r: B / A, t: complex(math.Exp(-r.logScale), 0) / A, steps: r.steps, lastError: r.lastErr}
+	out := amplitudes{r: B / A, t: complex(math.Exp(-r.logScale), 0) / A, steps: r.steps, lastError: r.lastErr,
+		jumped: r.jumped, phase: r.phase}
 	out.logT = -2 * (r.logScale + math.Log(cmplx.Abs(A)))
 	// A relative error rel of (y, y′) moves A and B by about rel·(|A|+|B|).
 	spread := rel * (cmplx.Abs(A) + cmplx.Abs(B)) / cmplx.Abs(A)
+	// Conditioning: a relative error made where y is larger than at a (in
+	// the well between two barriers, near a resonance) comes back to a
+	// with the growth of the other solution from there, about the same
+	// factor again: rounding times (max |y| / |y(a)|)², the condition
+	// number E/Γ of T at a narrow resonance, from the steps' random walk.
+	if g := r.logMax - r.logEnd; g > 0 {
+		cond := math.Exp(math.Min(2*g, 700))
+		spread += 4 * eps * cond * math.Sqrt(float64(r.steps))
+	}
 	out.roundR = spread * (1 + cmplx.Abs(out.r))
 	out.roundT = spread
 	return out, nil
@@ -304,8 +397,8 @@ func realAxis(p wkb.Problem, ea, eb endWave, tol float64, maxSteps int) (amplitu
 // about δ e^(−2 Im S(z)), so the steps may err by tol·rRef·e^(2 Im S) with
 // rRef = max(rEst, floor) besides tol·|σ|, floor being the resolution limit
 // set by the ends (endFloor).
-func complexPath(p wkb.Problem, ea, eb endWave, H, tol float64, maxSteps int, rEst float64) (amplitudes, error) {
-	r := &run{method: ComplexPath.String(), tol: tol, maxSteps: maxSteps, jumps: true,
+func complexPath(p wkb.Problem, ea, eb endWave, H, tol float64, maxSteps int, rEst float64, jumps bool) (amplitudes, error) {
+	r := &run{method: ComplexPath.String(), tol: tol, maxSteps: maxSteps, jumps: jumps,
 		rRef: math.Max(rEst, endFloor(ea, eb))}
 	// At b the solution is the transmitted higher-order wave, amplitude 1.
 	apb, amb := eb.toFirst(1, 0)
@@ -326,7 +419,8 @@ func complexPath(p wkb.Problem, ea, eb endWave, H, tol float64, maxSteps int, rE
 	apa := apb * cmplx.Exp(st.ell-1i*Sab)
 	ama := st.sigma * apa
 	A, B := ea.toHigher(apa, ama)
-	out := amplitudes{r: B / A, t: 1 / A, logT: -2 * math.Log(cmplx.Abs(A)), steps: r.steps, lastError: r.lastErr, maxSigma: st.maxSigma, maxImS: st.maxImS, kAtMax: st.kAtMax}
+	out := amplitudes{r: B / A, t: 1 / A, logT: -2 * math.Log(cmplx.Abs(A)), steps: r.steps, lastError: r.lastErr,
+		maxSigma: st.maxSigma, maxImS: st.maxImS, kAtMax: st.kAtMax, jumped: r.jumped, phase: r.phase}
 	// The per-step estimate plus a floor for the relative rounding of the
 	// end conversion and the exponentials.
 	ar := cmplx.Abs(out.r)

@@ -15,6 +15,14 @@ import (
 // orders gain little step length per unit of work.
 const order = 30
 
+// stepSamples is the number of points along a Taylor step at which K² is
+// compared with its series (see alongCheck).
+const stepSamples = 4
+
+// stepRadians bounds the phase spanned by a Taylor step of the complex-path
+// method.
+const stepRadians = 8
+
 // run holds the bookkeeping of one integration.
 type run struct {
 	method   string
@@ -29,6 +37,19 @@ type run struct {
 	skip     int     // Taylor steps to take before the next jump attempt
 	rRef     float64 // complex path: |r| scale for the weighted absolute error budget
 	backoff  int     // current back-off length
+	jumpCap  float64 // largest jump length (0: none beyond the local limits)
+	phase    float64 // phase ∫|Re K| covered so far, a measure of the cost of a run without jumps
+	logMax   float64 // largest ln(|y| + |y′|/κ) met, scaling included (real axis)
+	logEnd   float64 // its value at the end of the last step
+}
+
+// track records the size m of (y, y′) after a step, before rescaling.
+func (r *run) track(m float64) {
+	l := math.Log(m) + r.logScale
+	if r.steps == 0 || l > r.logMax {
+		r.logMax = l
+	}
+	r.logEnd = l
 }
 
 func (r *run) fail(st Status, z complex128) error {
@@ -139,8 +160,11 @@ func integrateY(p wkb.Problem, z0, z1 complex128, y, dy complex128, r *run) (com
 		kappa := math.Max(math.Sqrt(cmplx.Abs(K[0])), 1/length)
 		scale := cmplx.Abs(y) + cmplx.Abs(dy)/kappa
 		rem := length - s
-		h := stepFor(ys, scale, r.tol, rem)
+		// The step is valid within the radius of convergence of the jets
+		// of K² only, however flat they look (a tanh tail far out).
+		h := stepFor(ys, scale, r.tol, math.Min(rem, jumpRadius*radius(K)))
 		h = stepFor(dys, scale*kappa, r.tol, h)
+		h = alongCheck(p, z, dir, K, h, r.tol, stepSamples)
 		if h < 1e-12*length && h < rem {
 			return y, dy, r.fail(StepUnderflow, z)
 		}
@@ -158,7 +182,9 @@ func integrateY(p wkb.Problem, z0, z1 complex128, y, dy complex128, r *run) (com
 		r.lastErr = e / ns
 		rr := eps * (m1 + m2/kappa) / ns
 		r.round += rr
+		r.track(ns)
 		y, dy = rescale(yn, dyn, ns, r)
+		r.phase += math.Sqrt(cmplx.Abs(K[0])) * h
 		s += h
 		r.steps++
 	}
@@ -305,10 +331,18 @@ func integrateSigma(p wkb.Problem, z0, z1 complex128, st *sigmaState, r *run) er
 		h = stepFor(ph[1:], 1+cmplx.Abs(ph[1])*h, r.tol, h)
 		scale := math.Max(cmplx.Abs(sg[0]), cmplx.Abs(sg[1])*math.Min(h, hPrev))
 		scale = math.Max(scale, r.rRef*math.Exp(2*imag(st.S)))
-		if scale == 0 {
-			scale = math.SmallestNonzeroFloat64
-		}
+		// Below tiny σ has no digits to control (and tol·scale would
+		// underflow to a zero step).
+		scale = math.Max(scale, tiny)
 		h = stepFor(sg, scale, r.tol, h)
+		// Valid within the radius of the jets only, and as far as their
+		// series predicts K² along the step.
+		h = math.Min(h, jumpRadius*radius(q))
+		// Where σ and γ vanish to rounding (K² flat) the series above set
+		// no limit: keep to a few radians of phase, as the steps of
+		// integrateY do, so that the samples below are dense enough.
+		h = math.Min(h, stepRadians/cmplx.Abs(k[0]))
+		h = alongCheck(p, z, dir, q, h, r.tol, stepSamples)
 		if h < 1e-12*length && h < rem {
 			return r.fail(StepUnderflow, z)
 		}
@@ -338,6 +372,7 @@ func integrateSigma(p wkb.Problem, z0, z1 complex128, st *sigmaState, r *run) er
 		st.sqPrev = sq.At(dir * hc)
 		st.havePrev = true
 		st.sigma, st.ell, st.S = sn, en, pn
+		r.phase += cmplx.Abs(k[0]) * h
 		hPrev = h
 		s += h
 		r.steps++
@@ -360,7 +395,8 @@ func phaseIntegral(p wkb.Problem, a, b float64, r *run) (complex128, error) {
 		if r.steps >= r.maxSteps {
 			return S, r.fail(StepLimit, z)
 		}
-		sk := jet.Sqrt(kSquared(p, z, order))
+		q := kSquared(p, z, order)
+		sk := jet.Sqrt(q)
 		if have && cmplx.Abs(sk[0]-prev) > cmplx.Abs(sk[0]+prev) {
 			sk = jet.Neg(sk)
 		}
@@ -370,7 +406,8 @@ func phaseIntegral(p wkb.Problem, a, b float64, r *run) (complex128, error) {
 			c[j+1] = v / complex(float64(j+1), 0)
 		}
 		rem := b - x
-		h := stepFor(sk, cmplx.Abs(sk[0]), r.tol, rem)
+		h := stepFor(sk, cmplx.Abs(sk[0]), r.tol, math.Min(rem, jumpRadius*radius(q)))
+		h = alongCheck(p, z, 1, q, h, r.tol, stepSamples)
 		if h < 1e-12*length && h < rem {
 			return S, r.fail(StepUnderflow, z)
 		}

@@ -41,7 +41,13 @@
 // on an asymmetric mesh a level within the discretisation error of another
 // is flagged NearDegenerate. The decay factor exp(−∫√(2m(V−E))/ħ) from the
 // outer turning point to each open end is reported, and an end closer than
-// the tolerance flags the level IntervalShort.
+// the tolerance flags the level IntervalShort. The decaying WKB start is
+// exact only to its next term, so wherever the decay factor exceeds 1e-9
+// the level is solved again on the finest mesh with the leading-order start
+// ψ′/ψ = ±√q (or ψ = 0 where that is already used) and the change of E is
+// added to Err: an open end inside a centrifugal barrier, where the WKB
+// start is off by a few per cent, shows up in Err and not only in the
+// warning.
 //
 // # Cost
 //

@@ -145,6 +145,16 @@ func (sv *Solver) level(n int) (Level, run, error) {
 		st = NearDegenerate
 	}
 	sv.checkEnds(m0, &lv)
+	// The end condition is exact only to the next WKB term: fold the shift
+	// of E it causes into Err wherever it can matter (the warning of
+	// checkEnds stays).
+	if lv.Decay > endDecayMin {
+		shift, err := sv.endShift(lastMesh, ic, target, root, &lv)
+		if err != nil {
+			return lv, rn, err
+		}
+		lv.Err += shift
+	}
 	if !converged {
 		return lv, rn, &ConvergenceError{N: n, E: lv.E, Err: lv.Err, Tol: absTol, Iterations: lv.Iterations, Status: st}
 	}
@@ -393,4 +403,58 @@ func extrapolant(t [][]float64) (best, err float64) {
 		}
 	}
 	return best, err
+}
+
+// endDecayMin is the decay factor to an open end below which its end
+// condition cannot move E above rounding (the shift goes as its square).
+const endDecayMin = 1e-9
+
+// endShift returns the change of the root e0 of D(E) = target on m when the
+// open ends start from the next coarser end condition (start with alt):
+// the first-order WKB start ψ′/ψ = √q − q′/(4q) against the leading order.
+// The error of the first-order start is that of the next WKB term, in
+// practice an order of the WKB small parameter below the change, so the
+// change bounds it.
+func (sv *Solver) endShift(m *mesh, ic int, target, e0 float64, lv *Level) (float64, error) {
+	g := func(e float64) float64 {
+		lv.Iterations++
+		return sv.shootEnd(m, ic, e, true).d - target
+	}
+	top := sv.emax - 4*eps*math.Max(1, math.Abs(sv.emax))
+	w := 64 * eps * sv.scale(e0)
+	lo, hi := e0-w, math.Min(e0+w, top)
+	flo, fhi := g(lo), g(hi)
+	for k := 0; flo > 0 || fhi <= 0; k++ {
+		if k > 200 || hi >= top && fhi <= 0 {
+			return 0, fmt.Errorf("eigen: level %d: cannot bracket it with the coarser end condition near E = %g", lv.N, e0)
+		}
+		w *= 4
+		if flo > 0 {
+			lo = e0 - w
+			flo = g(lo)
+		}
+		if fhi <= 0 {
+			hi = math.Min(e0+w, top)
+			fhi = g(hi)
+		}
+	}
+	// Bisection with secant steps (Illinois): D is smooth and increasing.
+	for it := 0; it < 200 && hi-lo > 4*eps*sv.scale(e0); it++ {
+		x := lo - flo*(hi-lo)/(fhi-flo)
+		if !(x > lo && x < hi) {
+			x = 0.5 * (lo + hi)
+		}
+		fx := g(x)
+		if fx <= 0 {
+			lo, flo = x, fx
+			fhi /= 2
+		} else {
+			hi, fhi = x, fx
+			flo /= 2
+		}
+		if math.Abs(fx) < 4*eps*(math.Abs(target)+math.Pi) {
+			return math.Abs(x - e0), nil
+		}
+	}
+	return math.Abs(0.5*(lo+hi) - e0), nil
 }

@@ -33,6 +33,7 @@ type Solver struct {
 type endData struct {
 	open   bool
 	v, dv  float64 // V and dV/dx at the end
+	d2v    float64 // d²V/dx² at the end (NaN if not finite)
 	x      float64
 	inward float64 // +1 at A, −1 at B
 }
@@ -98,10 +99,13 @@ func NewSolver(w wkb.Well, s *Settings) (*Solver, error) {
 	}{{w.A, w.LeftWall, 1}, {w.B, w.RightWall, -1}} {
 		d := endData{open: !e.wall, x: e.x, inward: e.inward}
 		if d.open {
-			t := w.V.Taylor(complex(e.x, 0), 1)
-			d.v, d.dv = real(t[0]), real(t[1])
+			t := w.V.Taylor(complex(e.x, 0), 2)
+			d.v, d.dv, d.d2v = real(t[0]), real(t[1]), 2*real(t[2])
 			if math.IsNaN(d.v) || math.IsInf(d.v, 0) || math.IsNaN(d.dv) || math.IsInf(d.dv, 0) {
 				return nil, fmt.Errorf("eigen: potential is not finite at the open end x = %g", e.x)
+			}
+			if math.IsNaN(d.d2v) || math.IsInf(d.d2v, 0) {
+				d.d2v = math.NaN() // not usable: the second correction is left out
 			}
 			sv.emax = math.Min(sv.emax, d.v)
 		}
@@ -127,9 +131,20 @@ func (sv *Solver) mesh(j int) (*mesh, error) {
 
 // start returns the initial state at end k (0 = A, 1 = B; for B in the
 // reflected coordinate) at energy E: ψ = 0 at a wall, the decaying WKB
-// solution with its first correction, ψ′/ψ = √q ∓ q′/(4q), at an open end.
-// ok is false if the open end is classically allowed at E.
-func (sv *Solver) start(k int, e float64) (s state, ok bool) {
+// solution at an open end. With q = 2m(V − E)/ħ² and ′ the derivative
+// inwards, the Riccati series of ψ′/ψ for ψ″ = qψ (φ′ + φ² = q, φ₀ = √q,
+// 2φ₀φ_j = −φ′_(j−1) − Σ φ_l φ_(j−l)) gives
+//
+//	ψ′/ψ = √q − q′/(4q) + q″/(8q^(3/2)) − 5q′²/(32q^(5/2)) + … ,
+//
+// taken as far as the terms decrease (the first correction only if it
+// leaves more than half of √q). ok is false if the open end is classically
+// allowed at E.
+//
+// With alt set, the last term used is dropped (ψ = 0 if only √q was used):
+// the change of E it causes bounds the error of the end condition (see
+// endShift).
+func (sv *Solver) start(k int, e float64, alt bool) (s state, ok bool) {
 	d := sv.ends[k]
 	if !d.open {
 		return state{0, 1}, true
@@ -139,10 +154,25 @@ func (sv *Solver) start(k int, e float64) (s state, ok bool) {
 		return state{0, 1}, false
 	}
 	dq := sv.c * d.dv * d.inward // derivative along the inward direction
+	d2q := sv.c * d.d2v
 	r := math.Sqrt(q)
-	kap := r - dq/(4*q)
-	if !(kap > 0.5*r) { // WKB correction not small: keep the leading order
-		kap = r
+	terms := []float64{r}
+	if t1 := -dq / (4 * q); r+t1 > 0.5*r {
+		terms = append(terms, t1)
+		t2 := d2q/(8*q*r) - 5*dq*dq/(32*q*q*r)
+		if math.Abs(t2) < 0.5*math.Abs(t1) {
+			terms = append(terms, t2)
+		}
+	}
+	if alt {
+		if len(terms) == 1 {
+			return state{0, 1}, true
+		}
+		terms = terms[:len(terms)-1]
+	}
+	var kap float64
+	for _, t := range terms {
+		kap += t
 	}
 	n := math.Hypot(1, kap)
 	return state{1 / n, kap / n}, true
@@ -161,10 +191,16 @@ type shot struct {
 // of eigenvalues below E is ⌈D/π⌉ (Sturm oscillation; Pryce, Numerical
 // Solution of Sturm–Liouville Problems, 1993, ch. 5).
 func (sv *Solver) shoot(m *mesh, ic0 int, e float64) shot {
+	return sv.shootEnd(m, ic0, e, false)
+}
+
+// shootEnd is shoot, with the alternative end condition of start if alt
+// is set.
+func (sv *Solver) shootEnd(m *mesh, ic0 int, e float64, alt bool) shot {
 	ce := sv.c * e
 	ic := ic0 * m.parts
-	sl, okl := sv.start(0, e)
-	sr, okr := sv.start(1, e)
+	sl, okl := sv.start(0, e, alt)
+	sr, okr := sv.start(1, e, alt)
 	i0, i1 := 0, len(m.h)
 	if j, s, ok := m.skip(ce, ic, false); ok {
 		i0, sl = j, s

@@ -90,7 +90,7 @@ func (s Status) String() string {
 type Level struct {
 	N          int      // quantum number asked for
 	E          float64  // energy, Richardson-extrapolated over the meshes
-	Err        float64  // error estimate: smallest change among the Richardson extrapolants, at least the rounding of the angles
+	Err        float64  // error estimate: smallest change among the Richardson extrapolants (at least the rounding of the angles) plus the effect of the end condition at open ends
 	Nodes      int      // interior nodes of the eigenfunction by the Prüfer count on the finest mesh
 	Iterations int      // number of shooting sweeps (energy evaluations) over all meshes
 	Meshes     int      // number of meshes used
