@@ -203,7 +203,18 @@ type scatterCase struct {
 	ref  string // name in the reference file when it differs from name
 	at   []string
 	toml func(at string) string
+	// unsettled marks an interval whose ends lie where Q still varies
+	// (about 1e-8): the promised 1e-10 assumes settled ends (README, "How
+	// far to trust the numbers"), so here the numerical figure must lie
+	// within its own estimate, and that estimate must stay below unsettledTol.
+	unsettled bool
 }
+
+// unsettledTol bounds the relative error estimate of a numerical figure on an
+// interval whose ends are unsettled to about 1e-8 in Q: the end waves' error
+// is of that order, so an estimate far above it would mean the method, not
+// the ends, limits the figure.
+const unsettledTol = 1e-7
 
 func schrodingerScan(params, potential, mass, hbar, x, box string) func(string) string {
 	return func(at string) string {
@@ -302,13 +313,13 @@ points = 1
 		toml: noBox(gradedScan("n2 = 1.6\nw = 0.08", "1 + (n2^2 - 1)/(1 + exp(-x/w))", "35.0", "[-3.5, 3.5]", ""))},
 	// Shorter intervals, as users write them: Q is constant only to about 1e-8
 	// at the ends, and the references are still those of the infinite line.
-	{name: "cosh2-barrier-short", ref: "cosh2-barrier", at: []string{"0.6", "1.5", "1.9"},
+	{name: "cosh2-barrier-short", unsettled: true, ref: "cosh2-barrier", at: []string{"0.6", "1.5", "1.9"},
 		toml: schrodingerScan("U0 = 1.5\nal = 1.3", "U0 / cosh(al*x)^2", "0.7", "0.08",
 			"[-8.0, 8.0]", "{ re = [-8.0, 8.0], im = [-1.5, 1.5] }")},
-	{name: "smooth-step-short", ref: "smooth-step", at: []string{"0.7", "0.8"},
+	{name: "smooth-step-short", unsettled: true, ref: "smooth-step", at: []string{"0.7", "0.8"},
 		toml: schrodingerScan("U0 = 0.6\nal = 2.5", "U0/(1 + exp(-al*x))", "1.0", "0.05",
 			"[-8.0, 8.0]", "{ re = [-8.0, 8.0], im = [-2.0, 2.0] }")},
-	{name: "epstein-oblique-short", ref: "epstein-oblique", at: []string{"0.25", "0.5"},
+	{name: "epstein-oblique-short", unsettled: true, ref: "epstein-oblique", at: []string{"0.25", "0.5"},
 		toml: gradedScan("n2 = 1.6\nw = 0.08", "1 + (n2^2 - 1)/(1 + exp(-x/w))", "35.0",
 			"[-1.5, 1.5]", "{ re = [-1.5, 1.5], im = [-0.4, 0.4] }")},
 	{name: "gauss-barrier", at: []string{"0.3", "1.0", "1.3"},
@@ -410,7 +421,15 @@ func TestScattering(t *testing.T) {
 							nv, ne = float64(n.T), float64(n.ErrT)
 						}
 					}
-					judge(t, fmt.Sprintf("%s %s(%s)", sc.name, q, v), r, wv, we, nv, ne, w != nil, n != nil)
+					what := fmt.Sprintf("%s %s(%s)", sc.name, q, v)
+					if sc.unsettled {
+						if ne > unsettledTol*math.Abs(r.value) {
+							t.Errorf("%s: numerical estimate %.2g relative exceeds %.0e on an interval unsettled to 1e-8", what, ne/math.Abs(r.value), unsettledTol)
+						}
+						judgeTo(t, what, r, math.Inf(1), wv, we, nv, ne, w != nil, n != nil)
+					} else {
+						judge(t, what, r, wv, we, nv, ne, w != nil, n != nil)
+					}
 				}
 				// The amplitudes must square to the powers they come with.
 				for _, a := range []*study.Amplitude{w, n} {

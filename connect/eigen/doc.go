@@ -24,7 +24,8 @@
 // function is least steep); the number of levels below E is ⌈D/π⌉ with
 // D = θ_L − θ_R there, which brackets E_n, and Brent's method solves
 // D(E) = nπ to rounding. Open ends start from the decaying WKB solution with
-// its first correction, ψ′/ψ = ±√q − q′/(4q); where the forbidden-region
+// its first two corrections, ψ′/ψ = ±√q − q′/(4q) ± (q″/(8q^(3/2)) −
+// 5q′²/(32q^(5/2))), as far as the terms decrease; where the forbidden-region
 // action from the turning point exceeds 20 the shot starts there instead,
 // the rest being below rounding.
 //
@@ -43,11 +44,10 @@
 // outer turning point to each open end is reported, and an end closer than
 // the tolerance flags the level IntervalShort. The decaying WKB start is
 // exact only to its next term, so wherever the decay factor exceeds 1e-9
-// the level is solved again on the finest mesh with the leading-order start
-// ψ′/ψ = ±√q (or ψ = 0 where that is already used) and the change of E is
-// added to Err: an open end inside a centrifugal barrier, where the WKB
-// start is off by a few per cent, shows up in Err and not only in the
-// warning.
+// the level is solved again on the finest mesh with the last of those terms
+// dropped (ψ = 0 where only √q is used) and the change of E is added to
+// Err: an open end inside a centrifugal barrier, where the WKB start is off
+// by a fraction of a per cent, shows up in Err and not only in the warning.
 //
 // # Cost
 //

@@ -410,11 +410,10 @@ func extrapolant(t [][]float64) (best, err float64) {
 const endDecayMin = 1e-9
 
 // endShift returns the change of the root e0 of D(E) = target on m when the
-// open ends start from the next coarser end condition (start with alt):
-// the first-order WKB start ψ′/ψ = √q − q′/(4q) against the leading order.
-// The error of the first-order start is that of the next WKB term, in
-// practice an order of the WKB small parameter below the change, so the
-// change bounds it.
+// open ends start from the next coarser end condition (start with alt: the
+// last WKB term of ψ′/ψ dropped). The error of the start is that of the
+// first omitted term, in practice an order of the WKB small parameter below
+// the last one kept, so the change bounds it.
 func (sv *Solver) endShift(m *mesh, ic int, target, e0 float64, lv *Level) (float64, error) {
 	g := func(e float64) float64 {
 		lv.Iterations++
