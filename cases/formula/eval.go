@@ -278,12 +278,15 @@ func compilePow(a, b code) code {
 		c := a.val
 		logc := cmplx.Log(c)
 		return code{
-			eval:   func(z complex128) complex128 { return cmplx.Pow(c, be(z)) },
+			// The same operations as the series' leading term, so Eval and
+			// Taylor agree to the last bit even where a tower of powers
+			// amplifies rounding.
+			eval:   func(z complex128) complex128 { return cmplx.Exp(logc * be(z)) },
 			series: func(v jet.Series) jet.Series { return jet.Exp(jet.Scale(logc, bs(v))) },
 		}
 	}
 	return code{
-		eval:   func(z complex128) complex128 { return cmplx.Pow(ae(z), be(z)) },
+		eval:   func(z complex128) complex128 { return cmplx.Exp(be(z) * cmplx.Log(ae(z))) },
 		series: func(v jet.Series) jet.Series { return jet.Exp(jet.Mul(bs(v), jet.Log(as(v)))) },
 	}
 }
