@@ -155,7 +155,13 @@ func writeStokes(w io.Writer, r *study.Report, full bool) {
 			d.From, d.To, fmtC(d.Gap))
 	}
 	if len(s.Degeneracies) > 0 {
-		fmt.Fprintln(w, "  (across a degeneracy a first-order connection formula is not valid: scattering uses the uniform parabolic-cylinder connection for such a pair)")
+		note := "across a degeneracy a first-order connection formula is not valid"
+		if r.Scan != nil {
+			note += ": scattering uses the uniform parabolic-cylinder connection for such a pair"
+		} else if r.Levels != nil {
+			note += ": double wells are quantised with the uniform connection through their barrier"
+		}
+		fmt.Fprintf(w, "  (%s)\n", note)
 	}
 	for _, x := range s.Warnings {
 		fmt.Fprintf(w, "warning: %s\n", x)
