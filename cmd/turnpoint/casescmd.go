@@ -18,9 +18,21 @@ ready to copy and edit. Any command taking CASE.toml also takes lib:NAME.`,
 
 func init() {
 	casesCommand.Flags = func(fs *pflag.FlagSet) func(*env, []string) error {
+		asJSON := fs.Bool("json", false, "list the cases as JSON (name, summary)")
 		return func(e *env, args []string) error {
 			switch len(args) {
 			case 0:
+				if *asJSON {
+					type entry struct {
+						Name    string `json:"name"`
+						Summary string `json:"summary"`
+					}
+					var list []entry
+					for _, n := range library.Names() {
+						list = append(list, entry{n, library.Summary(n)})
+					}
+					return writeJSON(e.stdout, list)
+				}
 				for _, n := range library.Names() {
 					fmt.Fprintf(e.stdout, "  %-22s %s\n", n, library.Summary(n))
 				}
@@ -50,7 +62,11 @@ var version = "0.1.0-dev"
 
 func init() {
 	versionCommand.Flags = func(fs *pflag.FlagSet) func(*env, []string) error {
+		asJSON := fs.Bool("json", false, "print the version as JSON")
 		return func(e *env, args []string) error {
+			if *asJSON {
+				return writeJSON(e.stdout, map[string]string{"version": version})
+			}
 			fmt.Fprintf(e.stdout, "turnpoint %s\n", version)
 			return nil
 		}

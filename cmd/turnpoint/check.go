@@ -45,11 +45,16 @@ func init() {
 	checkCommand.Flags = func(fs *pflag.FlagSet) func(*env, []string) error {
 		junit := fs.String("junit", "", "write a JUnit XML report into `FILE`")
 		jsonl := fs.String("jsonl", "", "write one JSON object per case into `FILE` (- for stdout)")
+		asJSON := fs.Bool("json", false, "write the JSON lines on stdout instead of the table (same as --jsonl -)")
 		shard := fs.String("shard", "", "run only slice `K/N` of the sorted case list")
 		update := fs.Bool("update", false, "rewrite the expected values from the current results")
 		workers := fs.Int("jobs", runtime.NumCPU(), "cases run at once")
 		return func(e *env, args []string) error {
-			return runCheck(e, args, checkOptions{junit: *junit, jsonl: *jsonl, shard: *shard, update: *update, workers: *workers})
+			opt := checkOptions{junit: *junit, jsonl: *jsonl, shard: *shard, update: *update, workers: *workers}
+			if *asJSON {
+				opt.jsonl, opt.quiet = "-", true
+			}
+			return runCheck(e, args, opt)
 		}
 	}
 }
@@ -58,6 +63,7 @@ type checkOptions struct {
 	junit, jsonl, shard string
 	update              bool
 	workers             int
+	quiet               bool // no table: --json writes only the JSON lines
 }
 
 // caseFile is one case to check: a path on disk or a bundled name.
@@ -202,8 +208,12 @@ func runCheck(e *env, args []string, opt checkOptions) error {
 	wg.Wait()
 
 	failed, broken := 0, 0
+	table := e.stdout
+	if opt.quiet {
+		table = io.Discard
+	}
 	for _, r := range results {
-		printCaseLine(e.stdout, r)
+		printCaseLine(table, r)
 		switch {
 		case r.err != nil:
 			broken++
@@ -211,14 +221,14 @@ func runCheck(e *env, args []string, opt checkOptions) error {
 			failed++
 		}
 		for _, c := range r.changes {
-			fmt.Fprintf(e.stdout, "  updated %s: %s %.10g -> %.10g\n", c.Where, c.Figure, c.Old, c.New)
+			fmt.Fprintf(table, "  updated %s: %s %.10g -> %.10g\n", c.Where, c.Figure, c.Old, c.New)
 		}
 	}
 	noun := "cases"
 	if len(results) == 1 {
 		noun = "case"
 	}
-	fmt.Fprintf(e.stdout, "\n%d %s: %d passed, %d failed, %d could not be loaded (%.1fs)\n",
+	fmt.Fprintf(table, "\n%d %s: %d passed, %d failed, %d could not be loaded (%.1fs)\n",
 		len(results), noun, len(results)-failed-broken, failed, broken, time.Since(start).Seconds())
 	if opt.junit != "" {
 		if err := writeJUnit(opt.junit, results, time.Since(start)); err != nil {
