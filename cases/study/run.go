@@ -11,6 +11,8 @@ import (
 	"strings"
 	"sync"
 
+	"gonum.org/v1/gonum/integrate/quad"
+
 	"github.com/turnpoint/turnpoint/cases"
 	"github.com/turnpoint/turnpoint/connect"
 	"github.com/turnpoint/turnpoint/connect/direct"
@@ -252,6 +254,7 @@ func scatterAt(c *cases.Case, v float64, base bool) ScanRow {
 			d := C(w.Dominant.Z)
 			amp.Dominant = &d
 		}
+		boundQ1Poles(p, q1poles, amp)
 		row.WKB = amp
 	}
 	var sing []complex128
@@ -261,6 +264,7 @@ func scatterAt(c *cases.Case, v float64, base bool) ScanRow {
 	// The λ-free term (the Liouville term of p waves, a centrifugal term)
 	// has singularities of its own, which the complex path must avoid too.
 	sing = append(sing, q1poles...)
+	sing = append(sing, effectiveSingularities(p, c.SearchBox())...)
 	if n, err := direct.Scatter(p, a, b, &direct.Settings{Singularities: sing}); err != nil {
 		row.Error = joinErr(row.Error, fmt.Sprintf("numeric: %v", err))
 	} else {
@@ -534,4 +538,107 @@ func q1Singularities(p wkb.Problem, box turning.Box) []complex128 {
 		}
 	}
 	return out
+}
+
+// effectiveSingularities returns the zeros and poles of the whole
+// coefficient K² = λ²Q + Q1 in the box, when Q1 is present. Near a double
+// pole of Q1 with a negative coefficient (the ε = 0 points of p waves) K²
+// has zeros of its own, at distance ≈ 1/λ from the pole, which are not zeros
+// of Q: a raised integration path must pass below them too.
+func effectiveSingularities(p wkb.Problem, box turning.Box) []complex128 {
+	if p.Q1 == nil {
+		return nil
+	}
+	inv := complex(1/(p.Lambda*p.Lambda), 0)
+	keff := jet.Map(func(s jet.Series) jet.Series {
+		z := s[0]
+		n := s.Order()
+		var q, q1 jet.Series
+		if n == 0 {
+			q, q1 = jet.Series{p.Q.Eval(z)}, jet.Series{p.Q1.Eval(z)}
+		} else {
+			q, q1 = p.Q.Taylor(z, n), p.Q1.Taylor(z, n)
+		}
+		return jet.Add(q, jet.Scale(inv, q1))
+	})
+	res, err := turning.Find(keff, box, nil)
+	if err != nil {
+		return nil
+	}
+	var out []complex128
+	for _, pt := range res.Points {
+		out = append(out, pt.Z)
+	}
+	return out
+}
+
+// boundQ1Poles widens the WKB error estimates by the reflection the poles of
+// Q1 could cause. No connection formula here treats them (for p waves they
+// are the ε = 0 points, where λ²Q + Q1 has zeros of its own a distance ≈ 1/λ
+// away); a singularity at height Im p over the axis reflects with
+// |r| ≈ c·exp(−2λ|Im ∫_{Re p}^{p} √Q|), and with the prefactor c unknown the
+// bound takes c = 2, the Stokes multiplier's modulus doubled (a rule of
+// thumb, stated in the warning).
+func boundQ1Poles(p wkb.Problem, poles []complex128, amp *Amplitude) {
+	worst := 0.0
+	var at complex128
+	for _, z := range poles {
+		s, ok := verticalPhase(p.Q, z)
+		if !ok {
+			continue
+		}
+		if dr := 2 * math.Exp(-2*p.Lambda*s); dr > worst {
+			worst, at = dr, z
+		}
+	}
+	if worst == 0 {
+		return
+	}
+	r := math.Sqrt(math.Max(float64(amp.R), 0))
+	bound := 2*r*worst + worst*worst
+	if bound < 1e-3*float64(amp.ErrR) {
+		return
+	}
+	amp.ErrR = Number(float64(amp.ErrR) + bound)
+	amp.ErrT = Number(float64(amp.ErrT) + bound)
+	amp.Warnings = append(amp.Warnings, fmt.Sprintf(
+		"the pole of Q1 at %.4g%+.4gi (for p waves a point where ε = 0) is not treated by the connection formulae: its reflection, bounded by 2·exp(−2λ Im∫√Q) = %.2g in |r| (a rule of thumb), is added to the error estimates",
+		real(at), imag(at), worst))
+}
+
+// verticalPhase returns |Im ∫ √Q dz| from the real axis straight up (or
+// down) to z, by 32-point Gauss–Legendre on the segment, the root continued
+// from the principal one on the axis; ok is false when Q vanishes on the way.
+func verticalPhase(q jet.Func, z complex128) (float64, bool) {
+	x0 := complex(real(z), 0)
+	h := z - x0
+	if h == 0 {
+		return 0, false
+	}
+	xs, ws := gaussLegendre32()
+	var sum complex128
+	prev := cmplx.Sqrt(q.Eval(x0))
+	for i := range xs {
+		t := 0.5 * (xs[i] + 1)
+		v := q.Eval(x0 + complex(t, 0)*h)
+		if v == 0 || cmplx.IsNaN(v) || cmplx.IsInf(v) {
+			return 0, false
+		}
+		root := cmplx.Sqrt(v)
+		if cmplx.Abs(root-prev) > cmplx.Abs(root+prev) {
+			root = -root // continue the branch along the segment
+		}
+		prev = root
+		sum += complex(0.5*ws[i], 0) * root
+	}
+	return math.Abs(imag(sum * h)), true
+}
+
+// gaussLegendre32 returns the nodes (ascending) and weights of the 32-point
+// Gauss–Legendre rule on [−1, 1], from gonum's fixed-location rule.
+func gaussLegendre32() ([]float64, []float64) {
+	xs := make([]float64, 32)
+	ws := make([]float64, 32)
+	quad.Legendre{}.FixedLocations(xs, ws, -1, 1)
+	return xs, ws
 }

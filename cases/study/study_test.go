@@ -22,6 +22,7 @@ func TestCompare(t *testing.T) {
 		{1e-20, 1e-23, 1.1e-20, 1e-24, false, "combined estimate"},
 		{1, math.Inf(1), 1, 0, false, "no finite error estimate"},
 		{math.NaN(), 0, 1, 0, false, "missing"},
+		{0.5, 0.1, 0.6, 0.2, false, "did not resolve"},
 	} {
 		v := compare(tc.wkb, tc.errW, tc.num, tc.errN)
 		if v.Agree != tc.agree || !strings.Contains(v.Reason, tc.reason) {

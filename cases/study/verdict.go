@@ -31,6 +31,9 @@ func compare(wkb, errWKB, num, errNum float64) *Verdict {
 		v.Reason = "the WKB figure has no finite error estimate"
 	case math.IsNaN(errNum) || math.IsInf(errNum, 0):
 		v.Reason = "the numerical figure has no finite error estimate"
+	case errNum > 0.1*math.Abs(num):
+		// A check that is not good to one digit checks nothing.
+		v.Reason = fmt.Sprintf("the numerical check did not resolve the figure (its estimate is %.2g relative)", errNum/scale)
 	case diff <= allowed:
 		v.Agree = true
 	default:
