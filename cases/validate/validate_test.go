@@ -513,6 +513,17 @@ var levelCases = []levelCase{
 // is asked (this validation's own choice, fixed before any run).
 const splitPromise = 1e-6
 
+// splitPromiseAt is splitPromise made consistent with its own reasoning for
+// splittings so small that levels good to 1e-10 relative cannot give 1e-6:
+// the difference of two levels at energy e is good to about 2e-10·|e|, so
+// a splitting delta is promised max(1e-6, 2e-10·|e|/delta) relative.
+func splitPromiseAt(e, delta float64) float64 {
+	if delta == 0 || math.IsNaN(e) {
+		return splitPromise
+	}
+	return math.Max(splitPromise, 2e-10*math.Abs(e)/math.Abs(delta))
+}
+
 func TestLevels(t *testing.T) {
 	for _, lc := range levelCases {
 		t.Run(lc.name, func(t *testing.T) {

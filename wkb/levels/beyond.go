@@ -145,3 +145,49 @@ func segmentPhase(p wkb.Problem, t, s complex128) (complex128, bool) {
 	}
 	return complex(p.Lambda, 0) * val[0], true
 }
+
+// wallShift returns the phase shift by which hard walls beyond soft ends
+// move the quantisation condition, and the largest single-wall exponent
+// e^(−2S). Beyond a soft end t the WKB solution that decays from t into the
+// barrier is ψ ∝ κ^(−1/2)(e^(−∫_t^x κ) − e^(−2S) e^(+∫_t^x κ)), κ = √(−Q),
+// S = λ∫_t^w √(−Q) dx, so that ψ(w) = 0 at the wall w; the decaying wave
+// connects to 2k^(−1/2)cos(∫_x^t k − π/4) and the growing one to
+// −k^(−1/2)sin(∫_x^t k − π/4) (the linear-turning-point connection
+// formulae, e.g. Landau & Lifshitz, QM §47 and §50; typed from memory), so the admixture turns the allowed-side wave into
+// cos(∫_x^t k − π/4 − e^(−2S)/2) to first order: the end's phase π/4
+// becomes π/4 + e^(−2S)/2, and the level rises by
+// ΔE = (e^(−2S)/2)/(∂Phase/∂E) = (ħω/π)e^(−2S)/2 per wall. It is the wall's
+// analogue of Beyond: exponentially small, invisible to every order of the
+// series of the pair. Forbidden stretches only count (where another
+// allowed region lies between, the level carries a several-wells warning).
+func wallShift(w wkb.Well, E float64, a, b end) (shift, largest float64) {
+	var ends [][2]float64
+	if !a.wall && w.LeftWall && w.A < a.x {
+		ends = append(ends, [2]float64{a.x, w.A})
+	}
+	if !b.wall && w.RightWall && w.B > b.x {
+		ends = append(ends, [2]float64{b.x, w.B})
+	}
+	q := w.Problem(E).Q
+	for _, e := range ends {
+		t, xw := e[0], e[1]
+		d := xw - t
+		// x = t + d u²: the square-root zero of −Q at t becomes smooth.
+		f := func(u float64, _ bool, out []complex128) bool {
+			v := -real(q.Eval(complex(t+d*u*u, 0)))
+			if v < 0 {
+				v = 0
+			}
+			out[0] = complex(math.Sqrt(v)*2*math.Abs(d)*u, 0)
+			return !math.IsNaN(v) && !math.IsInf(v, 0)
+		}
+		val, _, _, _, def := integrate(f, 1, 0, 1, []float64{1e-8}, maxQuadNodes)
+		if !def {
+			continue
+		}
+		v := math.Exp(-2 * w.Problem(E).Lambda * real(val[0]))
+		shift += v / 2
+		largest = math.Max(largest, v)
+	}
+	return shift, largest
+}

@@ -44,7 +44,19 @@
 // reached it, twice the next term while its terms still decrease (the next
 // term and the rest beyond it) — plus the quadrature errors, plus (two soft
 // ends) Beyond, the exponentially small coupling to the nearest other zero
-// of Q that no order of the series sees. For coupled wells the series is
+// of Q that no order of the series sees, plus twice Wall, the rise caused by
+// a hard wall beyond a soft end: the wall forces an admixture e^(−2S) of the
+// growing wave under the barrier (S = λ∫_t^wall √(−Q)), which shifts the
+// end's phase by e^(−2S)/2, so ΔE = (ħω/π)e^(−2S)/2 per wall. At a wall
+// where V′ = 0 (V ∝ x^p there) the wall's endpoint terms appear only every
+// few orders, so the next term can understate the remainder; there the
+// estimate is twice the largest of the next two terms after it, with a
+// warning. If the higher orders fail altogether, a first-order level
+// carries twice its order-2 term (or, failing that, half the level
+// spacing). Where no ellipse about two soft ends avoids a nearby pole (the
+// centrifugal pole beside the inner turning point of a high radial level),
+// the closed-contour integrals are split into a half loop about each
+// turning point and a real-axis piece between them. For coupled wells the series is
 // that of the energies order by order: twice the change at the next order,
 // and within two ħω_b of the barrier top (θ < 2π), where the barrier
 // corrections are powers of 1/ε that are not yet small, also the previous

@@ -64,9 +64,21 @@ func series(w wkb.Well, E float64, a, b end, kmax int, ps *wkb.PhaseSettings, hi
 	p := w.Problem(E)
 	switch {
 	case !a.wall && !b.wall:
+		if hint != nil && hint.split {
+			return pairSplit(p, a.x, b.x, kmax)
+		}
 		r, err := pairPhase(p, complex(a.x, 0), complex(b.x, 0), 2*kmax, ps, hint)
 		if err != nil {
-			return nil, nil, 0, err
+			// No ellipse about the pair serves: split it into two loops.
+			t, e, st, serr := pairSplit(p, a.x, b.x, kmax)
+			if serr != nil {
+				return nil, nil, 0, fmt.Errorf("%w; split loops: %v", err, serr)
+			}
+			if hint != nil {
+				hint.fails++
+				hint.split = hint.fails >= 2
+			}
+			return t, e, st, nil
 		}
 		terms = make([]float64, kmax+1)
 		errs = make([]float64, kmax+1)
@@ -77,6 +89,13 @@ func series(w wkb.Well, E float64, a, b end, kmax int, ps *wkb.PhaseSettings, hi
 		st := r.Status
 		if st == wkb.LeastTerm {
 			st = wkb.Success // the least term is chosen by the caller
+		}
+		if r.Status.Err() != nil {
+			// The ellipse fell short of its tolerance: the split loops
+			// replace it where their quadrature errors are smaller.
+			if t, e, sst, serr := pairSplit(p, a.x, b.x, kmax); serr == nil && sumErr(e) < sumErr(errs) {
+				return t, e, sst, nil
+			}
 		}
 		return terms, errs, st, nil
 	case a.wall && b.wall:
@@ -89,8 +108,15 @@ func series(w wkb.Well, E float64, a, b end, kmax int, ps *wkb.PhaseSettings, hi
 }
 
 // radiusHint remembers the contour radius PairPhase chose for a pair of
-// turning points, to skip its probe at nearby energies; nil means none.
-type radiusHint struct{ r float64 }
+// turning points, to skip its probe at nearby energies, and how often no
+// ellipse served (the split loops of pairSplit did): after two such
+// failures the pair is split without trying an ellipse, which costs the
+// most when it fails; nil means none.
+type radiusHint struct {
+	r     float64
+	fails int
+	split bool
+}
 
 // pairPhase is wkb.PairPhase with the radius taken from and stored in hint;
 // a fixed radius that fails (the turning points moved too far) is retried
@@ -208,4 +234,126 @@ func scaleTerms(lambda float64, val []complex128, ch []float64, f float64, ok bo
 		st = wkb.NodeLimit
 	}
 	return terms, errs, st, nil
+}
+
+// pairSplit is the closed-contour series of two soft ends t1 < t2 computed
+// without one contour about both: the finite part of ∫_{t1}^{t2} φ_{2k}/i
+// is additive, so it is split as
+//
+//	FP∫_{t1}^{m1} + ∫_{m1}^{m2} + FP∫_{m2}^{t2},
+//
+// the outer pieces half loops about each turning point as for a wall
+// (wallSoft, with the loop starting at m1 or m2 instead of a wall) and the
+// middle one a real-axis integral as between two walls (wallWall). Each
+// loop is shrunk, halving its reach ρ = |m − t| from (t2 − t1)/2, until Q
+// winds exactly once about it for both loop widths, i.e. no other zero or
+// pole of Q lies inside, and the two widths agree; this serves where a pole
+// sits close outside the pair (the centrifugal pole at r = 0 beside the
+// inner turning point of a high Coulomb level), which no ellipse about the
+// pair can avoid without passing too close to the turning points.
+func pairSplit(p wkb.Problem, t1, t2 float64, kmax int) ([]float64, []float64, wkb.Status, error) {
+	return pairSplitFrom(p, t1, t2, kmax, (t2-t1)/2)
+}
+
+// pairSplitFrom is pairSplit with the first reach half ≤ (t2 − t1)/2.
+func pairSplitFrom(p wkb.Problem, t1, t2 float64, kmax int, half float64) ([]float64, []float64, wkb.Status, error) {
+	loop := func(t, dir float64) (float64, []float64, []float64, wkb.Status, error) {
+		rho := half
+		var lastErr error
+		for it := 0; it < 10; it++ {
+			m := t + dir*rho
+			if loopWinding(p, t, m-t) {
+				terms, errs, st, err := wallSoft(p, m, t, kmax, dir)
+				if err == nil && resolvedLow(terms, errs) {
+					return m, terms, errs, st, nil
+				}
+				if err != nil {
+					lastErr = err
+				}
+			}
+			rho /= 2
+		}
+		if lastErr == nil {
+			lastErr = errors.New("levels: no loop about the turning point excludes the other singularities")
+		}
+		return 0, nil, nil, 0, lastErr
+	}
+	m1, ta, ea, sa, err := loop(t1, +1)
+	if err != nil {
+		return nil, nil, 0, err
+	}
+	m2, tb, eb, sb, err := loop(t2, -1)
+	if err != nil {
+		return nil, nil, 0, err
+	}
+	terms := make([]float64, kmax+1)
+	errs := make([]float64, kmax+1)
+	for k := range terms {
+		terms[k] = ta[k] + tb[k]
+		errs[k] = ea[k] + eb[k]
+	}
+	st := wkb.Success
+	if sa != wkb.Success || sb != wkb.Success {
+		st = wkb.NodeLimit
+	}
+	if m2 > m1 {
+		tm, em, sm, err := wallWall(p, m1, m2, kmax)
+		if err != nil {
+			return nil, nil, 0, err
+		}
+		for k := range terms {
+			terms[k] += tm[k]
+			errs[k] += em[k]
+		}
+		if sm != wkb.Success {
+			st = sm
+		}
+	}
+	return terms, errs, st, nil
+}
+
+func sumErr(e []float64) float64 {
+	var s float64
+	for _, v := range e {
+		s += v
+	}
+	return s
+}
+
+// resolvedLow reports whether the order-0 and order-2 terms of a loop are
+// resolved (quadrature error below a millionth of their size): a loop that
+// passes too near a singularity fails it.
+func resolvedLow(terms, errs []float64) bool {
+	for k := 0; k < min(2, len(terms)); k++ {
+		if !(errs[k] <= 1e-6*math.Abs(terms[k])) {
+			return false
+		}
+	}
+	return true
+}
+
+// loopWinding reports whether Q winds exactly once about the loops
+// x = t + d ζ², ζ = cos α + iδ sin α, α ∈ [0, π], of both widths δ used by
+// wallSoft: only the turning point t lies inside.
+func loopWinding(p wkb.Problem, t, d float64) bool {
+	const n = 512
+	for _, delta := range []float64{0.5, 0.3} {
+		var wind float64
+		prev := p.Q.Eval(complex(t+d, 0))
+		for j := 1; j <= n; j++ {
+			sn, co := math.Sincos(math.Pi * float64(j) / n)
+			zeta := complex(co, delta*sn)
+			q := p.Q.Eval(complex(t, 0) + complex(d, 0)*zeta*zeta)
+			dp := cmplx.Phase(q / prev)
+			if cmplx.IsNaN(q) || cmplx.IsInf(q) || math.Abs(dp) > math.Pi/2 {
+				return false
+			}
+			wind += dp
+			prev = q
+		}
+		if math.Round(wind/(2*math.Pi)) != 1 {
+			return false
+		}
+	}
+	return true
 }
