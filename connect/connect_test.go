@@ -510,3 +510,17 @@ func TestCoshBarrierTop(t *testing.T) {
 		t.Errorf("T = %.10f, exact %.10f, |diff| %.3g, ErrT %.3g", res.T, want, d, res.ErrT)
 	}
 }
+
+// TestRefusesAbsorbing checks that a Q complex on the axis (an absorbing
+// layer) is refused with a message naming the cause rather than given a
+// lossless answer.
+func TestRefusesAbsorbing(t *testing.T) {
+	q := jet.Map(func(x jet.Series) jet.Series {
+		g := jet.Exp(jet.Neg(jet.Mul(x, x)))
+		return jet.Add(jet.Const(1, x.Order()), jet.Scale(0.1i, g)) // 1 + 0.1i·exp(−x²)
+	})
+	_, err := Scatter(wkb.Problem{Q: q, Lambda: 10}, -6, 6, nil, nil)
+	if err == nil || !strings.Contains(err.Error(), "absorbing") {
+		t.Errorf("Scatter on an absorbing Q: error %v, want one naming absorption", err)
+	}
+}

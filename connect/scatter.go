@@ -9,6 +9,7 @@ import (
 
 	"github.com/turnpoint/turnpoint/turning"
 	"github.com/turnpoint/turnpoint/wkb"
+	"github.com/turnpoint/turnpoint/wkb/jet"
 )
 
 // Settings controls Scatter. A nil *Settings means all defaults.
@@ -151,6 +152,9 @@ func scatter(p wkb.Problem, a, b float64, points []turning.Point, s *Settings, t
 		return nil, fmt.Errorf("connect: need a finite interval a < b, got [%g, %g]", a, b)
 	case !(set.Tol > 0 && set.Tol < 1):
 		return nil, fmt.Errorf("connect: tolerance must lie in (0, 1), got %g", set.Tol)
+	}
+	if x, ok := complexOnAxis(p, a, b); ok {
+		return nil, fmt.Errorf("connect: Q or Q1 is complex on the real axis (at x = %.4g): an absorbing or gaining medium, for which these connection formulae (which assume Q real on the axis) do not hold", x)
 	}
 	lam := p.Lambda
 	res := &Result{}
@@ -641,4 +645,22 @@ func dedupeC(zs []complex128, tol float64) []complex128 {
 		}
 	}
 	return out
+}
+
+// complexOnAxis reports whether Q or Q1 has an imaginary part on [a, b]
+// (sampled at 128 points), and where.
+func complexOnAxis(p wkb.Problem, a, b float64) (float64, bool) {
+	for i := 0; i <= 128; i++ {
+		x := a + (b-a)*float64(i)/128
+		for _, f := range []jet.Func{p.Q, p.Q1} {
+			if f == nil {
+				continue
+			}
+			v := f.Eval(complex(x, 0))
+			if math.Abs(imag(v)) > 1e-12*math.Max(1, cmplx.Abs(v)) {
+				return x, true
+			}
+		}
+	}
+	return 0, false
 }

@@ -246,11 +246,7 @@ func scatterAt(c *cases.Case, v float64, base bool) ScanRow {
 		wkbPts = append(wkbPts, turning.Point{Z: z, Order: -2, Kind: turning.Pole})
 	}
 	if w, err := connect.Scatter(p, a, b, wkbPts, &connect.Settings{MaxOrder: scatterOrder}); err != nil {
-		msg := fmt.Sprintf("wkb: %v", err)
-		if absorbing(p.Q, a, b) {
-			msg += " (Q is complex on the real axis: an absorbing medium, which the WKB connection formulae here do not treat; the numerical figure stands alone)"
-		}
-		row.Error = joinErr(row.Error, msg)
+		row.Error = joinErr(row.Error, fmt.Sprintf("wkb: %v", err))
 	} else {
 		amp := &Amplitude{R: Number(w.R), T: Number(w.T), ErrR: Number(w.ErrR), ErrT: Number(w.ErrT),
 			Refl: C(w.Refl), Trans: C(w.Trans), Method: w.Method, Order: w.Order, Warnings: w.Warnings}
@@ -651,16 +647,4 @@ func gaussLegendre32() ([]float64, []float64) {
 	ws := make([]float64, 32)
 	quad.Legendre{}.FixedLocations(xs, ws, -1, 1)
 	return xs, ws
-}
-
-// absorbing reports whether Q is complex somewhere on [a, b] (a lossy or
-// gaining medium), sampled at 64 points.
-func absorbing(q jet.Func, a, b float64) bool {
-	for i := 0; i <= 64; i++ {
-		v := q.Eval(complex(a+(b-a)*float64(i)/64, 0))
-		if math.Abs(imag(v)) > 1e-12*math.Max(1, cmplx.Abs(v)) {
-			return true
-		}
-	}
-	return false
 }

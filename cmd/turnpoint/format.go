@@ -189,6 +189,12 @@ func writeScan(w io.Writer, s *study.ScanReport) {
 		return string(rune('A' + (len(formulas)-1)%26))
 	}
 	for _, r := range s.Rows {
+		if r.WKB == nil && r.Numeric != nil {
+			// The numerical figure stands alone; the reason follows the table.
+			fmt.Fprintf(tw, "  %.6g\t—\t\t%.10g\t%s\t\t—\t\t%.10g\t%s\t\tnot compared\t—\n", r.At,
+				float64(r.Numeric.R), fmtErr(r.Numeric.ErrR), float64(r.Numeric.T), fmtErr(r.Numeric.ErrT))
+			continue
+		}
 		if r.WKB == nil || r.Numeric == nil {
 			fmt.Fprintf(tw, "  %.6g\tnot computed: %s\n", r.At, r.Error)
 			continue
@@ -205,6 +211,11 @@ func writeScan(w io.Writer, s *study.ScanReport) {
 	tw.Flush()
 	for i, f := range formulas {
 		fmt.Fprintf(w, "  formula %c: %s\n", 'A'+i%26, f)
+	}
+	for _, r := range s.Rows {
+		if r.WKB == nil && r.Numeric != nil && r.Error != "" {
+			fmt.Fprintf(w, "  no WKB figure at %s = %.6g: %s\n", s.Label, r.At, r.Error)
+		}
 	}
 	if len(s.Rows) > 0 {
 		fmt.Fprintln(w, "  numerical check: "+numericMethods(s))
