@@ -284,7 +284,7 @@ func printCaseLine(w io.Writer, r *caseResult) {
 		fmt.Fprintf(w, "ERROR  %s\n       %v\n", r.file.name, strings.ReplaceAll(r.err.Error(), "\n", "\n       "))
 	case r.ok():
 		s := r.report.Summary
-		fmt.Fprintf(w, "ok     %-44s %3d figures agree, %2d expectations hold  (%.1fs)\n", r.file.name, s.Agree, s.Checks, r.elapsed.Seconds())
+		fmt.Fprintf(w, "ok     %-44s %3d %s agree, %2d %s hold  (%.1fs)\n", r.file.name, s.Agree, plural(s.Agree, "figure"), s.Checks, plural(s.Checks, "expectation"), r.elapsed.Seconds())
 	default:
 		s := r.report.Summary
 		fmt.Fprintf(w, "FAIL   %-44s %d of %d figures disagree, %d of %d expectations regressed  (%.1fs)\n",
@@ -404,4 +404,12 @@ func writeJUnit(path string, results []*caseResult, total time.Duration) error {
 		return err
 	}
 	return os.WriteFile(path, append([]byte(xml.Header), append(data, '\n')...), 0o644)
+}
+
+// plural returns word with an s unless n is 1.
+func plural(n int, word string) string {
+	if n == 1 {
+		return word
+	}
+	return word + "s"
 }
