@@ -56,10 +56,13 @@ type Summary struct {
 	Disagree  int `json:"disagree"`  // of those, not agreeing
 	Checks    int `json:"checks"`    // expectations checked
 	Regressed int `json:"regressed"` // expectations outside their tolerance
+	// Missing counts scan points and levels for which neither WKB nor the
+	// numerical check produced a figure.
+	Missing int `json:"missing"`
 }
 
 // OK reports whether every comparison and expectation passed.
-func (s Summary) OK() bool { return s.Disagree == 0 && s.Regressed == 0 }
+func (s Summary) OK() bool { return s.Disagree == 0 && s.Regressed == 0 && s.Missing == 0 }
 
 // PointsReport lists the turning points and singularities in the search box.
 type PointsReport struct {

@@ -402,9 +402,20 @@ func runLevels(c *cases.Case, opt *Options, rep *Report) *LevelsReport {
 	}
 	numNs = uniqueSorted(numNs)
 	numE := map[int][2]float64{}
-	nl, err := eigen.Levels(w, numNs, nil)
-	if err != nil {
+	// Level by level, so that a level that fails is known by its own error
+	// (the solver's meshes are shared between the calls).
+	var nl []eigen.Level
+	if sv, err := eigen.NewSolver(w, nil); err != nil {
 		lr.Warnings = append(lr.Warnings, fmt.Sprintf("numeric: %v", err))
+	} else {
+		for _, n := range numNs {
+			l, err := sv.Level(n)
+			if err != nil {
+				lr.Warnings = append(lr.Warnings, fmt.Sprintf("numeric, n = %d: %v", n, err))
+				continue
+			}
+			nl = append(nl, l)
+		}
 	}
 	for _, l := range nl {
 		numE[l.N] = [2]float64{l.E, l.Err}
@@ -467,12 +478,20 @@ func summarise(rep *Report) Summary {
 	}
 	if rep.Scan != nil {
 		for _, r := range rep.Scan.Rows {
+			if r.WKB == nil && r.Numeric == nil {
+				s.Missing++
+				rep.Failures = append(rep.Failures, fmt.Sprintf("%s = %g: not computed: %s", rep.Scan.Label, r.At, r.Error))
+			}
 			count(r.R, fmt.Sprintf("R at %s = %g", rep.Scan.Label, r.At))
 			count(r.T, fmt.Sprintf("T at %s = %g", rep.Scan.Label, r.At))
 		}
 	}
 	if rep.Levels != nil {
 		for _, r := range rep.Levels.Rows {
+			if math.IsNaN(float64(r.WKB)) && math.IsNaN(float64(r.Numeric)) {
+				s.Missing++
+				rep.Failures = append(rep.Failures, fmt.Sprintf("E[%d]: not computed (see the warnings)", r.N))
+			}
 			count(r.Verdict, fmt.Sprintf("E[%d]", r.N))
 		}
 		for _, d := range rep.Levels.Doublets {

@@ -328,11 +328,15 @@ func writeSummary(w io.Writer, r *study.Report) {
 		fmt.Fprintf(w, "error: %s\n", e)
 	}
 	s := r.Summary
-	if s.Figures == 0 && s.Checks == 0 {
+	if s.Figures == 0 && s.Checks == 0 && s.Missing == 0 {
 		return
 	}
-	fmt.Fprintf(w, "summary: %d WKB figures compared with numerics, %d agree within the stated estimates, %d do not; %d expectations, %d outside tolerance\n",
+	fmt.Fprintf(w, "summary: %d WKB figures compared with numerics, %d agree within the stated estimates, %d do not; %d expectations, %d outside tolerance",
 		s.Figures, s.Agree, s.Disagree, s.Checks, s.Regressed)
+	if s.Missing > 0 {
+		fmt.Fprintf(w, "; %d figures could not be computed", s.Missing)
+	}
+	fmt.Fprintln(w)
 	for _, f := range r.Failures {
 		fmt.Fprintf(w, "  - %s\n", f)
 	}
