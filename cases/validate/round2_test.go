@@ -1,10 +1,8 @@
 package validate_test
 
 import (
-	"bufio"
 	"fmt"
 	"math"
-	"os"
 	"sort"
 	"strconv"
 	"strings"
@@ -32,39 +30,7 @@ var (
 // loadRound2 reads testdata/round2.txt (the format of references.txt).
 func loadRound2(t *testing.T) map[string]ref {
 	t.Helper()
-	round2Once.Do(func() {
-		f, err := os.Open("testdata/round2.txt")
-		if err != nil {
-			round2Err = err
-			return
-		}
-		defer f.Close()
-		round2Refs = map[string]ref{}
-		sc := bufio.NewScanner(f)
-		for sc.Scan() {
-			line := strings.TrimSpace(sc.Text())
-			if line == "" || strings.HasPrefix(line, "#") {
-				continue
-			}
-			fs := strings.Fields(line)
-			if len(fs) != 5 {
-				round2Err = fmt.Errorf("bad line %q", line)
-				return
-			}
-			v, err := strconv.ParseFloat(fs[3], 64)
-			if err != nil {
-				round2Err = err
-				return
-			}
-			d, err := strconv.Atoi(fs[4])
-			if err != nil {
-				round2Err = err
-				return
-			}
-			round2Refs[refKey(fs[0], fs[1], fs[2])] = ref{v, d}
-		}
-		round2Err = sc.Err()
-	})
+	round2Once.Do(func() { round2Refs, round2Err = readRefs("testdata/round2.txt") })
 	if round2Err != nil {
 		t.Fatalf("round 2 references: %v", round2Err)
 	}

@@ -33,43 +33,43 @@ func refKey(name, qty, at string) string { return name + "|" + qty + "|" + at }
 // the closed forms named in that script).
 func loadRefs(t *testing.T) map[string]ref {
 	t.Helper()
-	refsOnce.Do(func() {
-		f, err := os.Open("testdata/references.txt")
-		if err != nil {
-			refsErr = err
-			return
-		}
-		defer f.Close()
-		refs = map[string]ref{}
-		sc := bufio.NewScanner(f)
-		for sc.Scan() {
-			line := strings.TrimSpace(sc.Text())
-			if line == "" || strings.HasPrefix(line, "#") {
-				continue
-			}
-			fs := strings.Fields(line)
-			if len(fs) != 5 {
-				refsErr = fmt.Errorf("bad line %q", line)
-				return
-			}
-			v, err := strconv.ParseFloat(fs[3], 64)
-			if err != nil {
-				refsErr = err
-				return
-			}
-			d, err := strconv.Atoi(fs[4])
-			if err != nil {
-				refsErr = err
-				return
-			}
-			refs[refKey(fs[0], fs[1], fs[2])] = ref{v, d}
-		}
-		refsErr = sc.Err()
-	})
+	refsOnce.Do(func() { refs, refsErr = readRefs("testdata/references.txt") })
 	if refsErr != nil {
 		t.Fatalf("references: %v", refsErr)
 	}
 	return refs
+}
+
+// readRefs reads a reference table: one "name quantity at value digits"
+// line per figure, # comments and blank lines ignored.
+func readRefs(path string) (map[string]ref, error) {
+	f, err := os.Open(path)
+	if err != nil {
+		return nil, err
+	}
+	defer f.Close()
+	out := map[string]ref{}
+	sc := bufio.NewScanner(f)
+	for sc.Scan() {
+		line := strings.TrimSpace(sc.Text())
+		if line == "" || strings.HasPrefix(line, "#") {
+			continue
+		}
+		fs := strings.Fields(line)
+		if len(fs) != 5 {
+			return nil, fmt.Errorf("%s: bad line %q", path, line)
+		}
+		v, err := strconv.ParseFloat(fs[3], 64)
+		if err != nil {
+			return nil, fmt.Errorf("%s: %v", path, err)
+		}
+		d, err := strconv.Atoi(fs[4])
+		if err != nil {
+			return nil, fmt.Errorf("%s: %v", path, err)
+		}
+		out[refKey(fs[0], fs[1], fs[2])] = ref{v, d}
+	}
+	return out, sc.Err()
 }
 
 func mustRef(t *testing.T, name, qty, at string) ref {
