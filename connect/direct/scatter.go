@@ -72,10 +72,18 @@ func Scatter(p wkb.Problem, a, b float64, s *Settings) (*Result, error) {
 	height, hTop, hLow := 0.0, 0.0, 0.0
 	if method != RealAxis {
 		var g geometry
+		g = scanAxis(p, a, b)
 		if len(set.Singularities) > 0 {
-			g = givenGeometry(p, a, b, set.Singularities)
-		} else {
-			g = scanAxis(p, a, b)
+			// The caller's list sharpens the scan but cannot replace it: a
+			// list of the zeros and poles of Q misses those of λ²Q + Q1
+			// (the zeros a double pole of Q1 brings, for p waves), and a
+			// path raised past them returns nonsense.
+			given := givenGeometry(p, a, b, set.Singularities)
+			if given.dmin < g.dmin {
+				g.dmin, g.at = given.dmin, given.at
+			}
+			g.realZero = g.realZero || given.realZero
+			g.qmin = math.Min(g.qmin, given.qmin)
 		}
 		if method == Auto {
 			method = RealAxis
