@@ -284,7 +284,11 @@ func printCaseLine(w io.Writer, r *caseResult) {
 		fmt.Fprintf(w, "ERROR  %s\n       %v\n", r.file.name, strings.ReplaceAll(r.err.Error(), "\n", "\n       "))
 	case r.ok():
 		s := r.report.Summary
-		fmt.Fprintf(w, "ok     %-44s %3d %s agree, %2d %s hold  (%.1fs)\n", r.file.name, s.Agree, plural(s.Agree, "figure"), s.Checks, plural(s.Checks, "expectation"), r.elapsed.Seconds())
+		verb := "hold"
+		if s.Checks == 1 {
+			verb = "holds"
+		}
+		fmt.Fprintf(w, "ok     %-44s %3d %s agree, %2d %s %s  (%.1fs)\n", r.file.name, s.Agree, plural(s.Agree, "figure"), s.Checks, plural(s.Checks, "expectation"), verb, r.elapsed.Seconds())
 	default:
 		s := r.report.Summary
 		fmt.Fprintf(w, "FAIL   %-44s %d of %d figures disagree, %d of %d expectations regressed  (%.1fs)\n",
