@@ -185,19 +185,7 @@ func TestRound2Scattering(t *testing.T) {
 		}
 		for _, v := range at {
 			t.Run(sc.name+"/"+v, func(t *testing.T) {
-				src := sc.toml(v)
-				c, err := cases.Parse(sc.name+".toml", []byte(src))
-				if err != nil {
-					t.Fatalf("parse: %v\n%s", err, src)
-				}
-				rep := study.Run(c, study.Scattering, &study.Options{Workers: 1})
-				if len(rep.Errors) > 0 {
-					t.Errorf("errors: %v", rep.Errors)
-				}
-				if rep.Scan == nil || len(rep.Scan.Rows) != 1 {
-					t.Fatalf("no scan row")
-				}
-				row := rep.Scan.Rows[0]
+				row := runScanPoint(t, sc.name, sc.toml(v))
 				w, n := row.WKB, row.Numeric
 				refused := w == nil && mayRefuseWKB[sc.name] && strings.Contains(row.Error, "wkb")
 				switch {
@@ -208,19 +196,8 @@ func TestRound2Scattering(t *testing.T) {
 				}
 				for _, q := range []string{"R", "T"} {
 					r := mustRound2(t, sc.name, q, v)
-					var wv, we, nv, ne float64
-					if w != nil {
-						wv, we = float64(w.R), float64(w.ErrR)
-						if q == "T" {
-							wv, we = float64(w.T), float64(w.ErrT)
-						}
-					}
-					if n != nil {
-						nv, ne = float64(n.R), float64(n.ErrR)
-						if q == "T" {
-							nv, ne = float64(n.T), float64(n.ErrT)
-						}
-					}
+					wv, we := pick(w, q)
+					nv, ne := pick(n, q)
 					what := fmt.Sprintf("r2 %s %s(%s)", sc.name, q, v)
 					if refused {
 						judgeNumeric(t, what, r, nv, ne, n != nil)
@@ -323,38 +300,11 @@ var round2Levels = []levelCase{
 func TestRound2Levels(t *testing.T) {
 	for _, lc := range round2Levels {
 		t.Run(lc.name, func(t *testing.T) {
-			c, err := cases.Parse(lc.name+".toml", []byte(lc.toml))
-			if err != nil {
-				t.Fatalf("parse: %v\n%s", err, lc.toml)
+			if lc.name == "coulomb-l4" && testing.Short() {
+				t.Skip("about 10 s (the failing higher-order contour of n = 10)")
 			}
-			rep := study.Run(c, study.Levels, &study.Options{Workers: 1})
-			if len(rep.Errors) > 0 {
-				t.Errorf("errors: %v", rep.Errors)
-			}
-			if rep.Levels == nil {
-				t.Fatalf("no levels report")
-			}
-			if len(rep.Levels.Warnings) > 0 {
-				t.Logf("warnings: %v", rep.Levels.Warnings)
-			}
-			byN := map[int]study.LevelRow{}
-			for _, r := range rep.Levels.Rows {
-				byN[r.N] = r
-			}
-			for _, n := range lc.ns {
-				r := mustRound2(t, lc.name, "E", strconv.Itoa(n))
-				row, ok := byN[n]
-				if !ok {
-					t.Errorf("%s E[%d]: missing from the report", lc.name, n)
-					continue
-				}
-				if row.Error != "" {
-					t.Errorf("%s E[%d]: %s", lc.name, n, row.Error)
-				}
-				judge(t, fmt.Sprintf("r2 %s E[%d]", lc.name, n), r, float64(row.WKB), float64(row.WKBErr),
-					float64(row.Numeric), float64(row.NumErr), true, true)
-				t.Logf("%s E[%d]: method %s order %d maslov %d warnings %v", lc.name, n, row.Method, row.Order, row.Maslov, row.Warnings)
-			}
+			rep, byN := runLevels(t, lc.name, lc.toml)
+			judgeLevels(t, "r2 ", lc.name, lc.ns, byN, func(q, at string) ref { return mustRound2(t, lc.name, q, at) })
 			for _, k := range lc.splits {
 				r := mustRound2(t, lc.name, "splitting", strconv.Itoa(k))
 				what := fmt.Sprintf("r2 %s splitting[%d]", lc.name, k)

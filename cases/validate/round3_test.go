@@ -331,38 +331,15 @@ func TestRound3Scattering(t *testing.T) {
 	for _, sc := range round3Scatter {
 		for _, v := range sc.at {
 			t.Run(sc.name+"/"+v, func(t *testing.T) {
-				src := sc.toml(v)
-				c, err := cases.Parse(sc.name+".toml", []byte(src))
-				if err != nil {
-					t.Fatalf("parse: %v\n%s", err, src)
-				}
-				rep := study.Run(c, study.Scattering, &study.Options{Workers: 1})
-				if len(rep.Errors) > 0 {
-					t.Errorf("errors: %v", rep.Errors)
-				}
-				if rep.Scan == nil || len(rep.Scan.Rows) != 1 {
-					t.Fatalf("no scan row")
-				}
-				row := rep.Scan.Rows[0]
+				row := runScanPoint(t, sc.name, sc.toml(v))
 				if row.Error != "" {
 					t.Errorf("row error: %s", row.Error)
 				}
 				w, n := row.WKB, row.Numeric
 				for _, q := range []string{"R", "T"} {
 					r := mustRound3(t, sc.name, q, v)
-					var wv, we, nv, ne float64
-					if w != nil {
-						wv, we = float64(w.R), float64(w.ErrR)
-						if q == "T" {
-							wv, we = float64(w.T), float64(w.ErrT)
-						}
-					}
-					if n != nil {
-						nv, ne = float64(n.R), float64(n.ErrR)
-						if q == "T" {
-							nv, ne = float64(n.T), float64(n.ErrT)
-						}
-					}
+					wv, we := pick(w, q)
+					nv, ne := pick(n, q)
 					judge(t, fmt.Sprintf("r3 %s %s(%s)", sc.name, q, v), r, wv, we, nv, ne, w != nil, n != nil)
 				}
 			})
@@ -387,35 +364,8 @@ var round3Levels = []levelCase{
 func TestRound3Levels(t *testing.T) {
 	for _, lc := range round3Levels {
 		t.Run(lc.name, func(t *testing.T) {
-			c, err := cases.Parse(lc.name+".toml", []byte(lc.toml))
-			if err != nil {
-				t.Fatalf("parse: %v\n%s", err, lc.toml)
-			}
-			rep := study.Run(c, study.Levels, &study.Options{Workers: 1})
-			if len(rep.Errors) > 0 {
-				t.Errorf("errors: %v", rep.Errors)
-			}
-			if rep.Levels == nil {
-				t.Fatalf("no levels report")
-			}
-			byN := map[int]study.LevelRow{}
-			for _, r := range rep.Levels.Rows {
-				byN[r.N] = r
-			}
-			for _, n := range lc.ns {
-				r := mustRound3(t, lc.name, "E", strconv.Itoa(n))
-				row, ok := byN[n]
-				if !ok {
-					t.Errorf("%s E[%d]: missing from the report", lc.name, n)
-					continue
-				}
-				if row.Error != "" {
-					t.Errorf("%s E[%d]: %s", lc.name, n, row.Error)
-				}
-				judge(t, fmt.Sprintf("r3 %s E[%d]", lc.name, n), r, float64(row.WKB), float64(row.WKBErr),
-					float64(row.Numeric), float64(row.NumErr), true, true)
-				t.Logf("%s E[%d]: method %s order %d warnings %v", lc.name, n, row.Method, row.Order, row.Warnings)
-			}
+			_, byN := runLevels(t, lc.name, lc.toml)
+			judgeLevels(t, "r3 ", lc.name, lc.ns, byN, func(q, at string) ref { return mustRound3(t, lc.name, q, at) })
 		})
 	}
 }

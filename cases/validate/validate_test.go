@@ -389,38 +389,15 @@ func TestScattering(t *testing.T) {
 		}
 		for _, v := range at {
 			t.Run(sc.name+"/"+v, func(t *testing.T) {
-				src := sc.toml(v)
-				c, err := cases.Parse(sc.name+".toml", []byte(src))
-				if err != nil {
-					t.Fatalf("parse: %v\n%s", err, src)
-				}
-				rep := study.Run(c, study.Scattering, &study.Options{Workers: 1})
-				if len(rep.Errors) > 0 {
-					t.Errorf("errors: %v", rep.Errors)
-				}
-				if rep.Scan == nil || len(rep.Scan.Rows) != 1 {
-					t.Fatalf("no scan row")
-				}
-				row := rep.Scan.Rows[0]
+				row := runScanPoint(t, sc.name, sc.toml(v))
 				if row.Error != "" {
 					t.Errorf("row error: %s", row.Error)
 				}
 				w, n := row.WKB, row.Numeric
 				for _, q := range []string{"R", "T"} {
 					r := mustRef(t, refName, q, v)
-					var wv, we, nv, ne float64
-					if w != nil {
-						wv, we = float64(w.R), float64(w.ErrR)
-						if q == "T" {
-							wv, we = float64(w.T), float64(w.ErrT)
-						}
-					}
-					if n != nil {
-						nv, ne = float64(n.R), float64(n.ErrR)
-						if q == "T" {
-							nv, ne = float64(n.T), float64(n.ErrT)
-						}
-					}
+					wv, we := pick(w, q)
+					nv, ne := pick(n, q)
 					what := fmt.Sprintf("%s %s(%s)", sc.name, q, v)
 					if sc.unsettled {
 						if ne > unsettledTol*math.Abs(r.value) {
@@ -527,38 +504,8 @@ func splitPromiseAt(e, delta float64) float64 {
 func TestLevels(t *testing.T) {
 	for _, lc := range levelCases {
 		t.Run(lc.name, func(t *testing.T) {
-			c, err := cases.Parse(lc.name+".toml", []byte(lc.toml))
-			if err != nil {
-				t.Fatalf("parse: %v\n%s", err, lc.toml)
-			}
-			rep := study.Run(c, study.Levels, &study.Options{Workers: 1})
-			if len(rep.Errors) > 0 {
-				t.Errorf("errors: %v", rep.Errors)
-			}
-			if rep.Levels == nil {
-				t.Fatalf("no levels report")
-			}
-			if len(rep.Levels.Warnings) > 0 {
-				t.Logf("warnings: %v", rep.Levels.Warnings)
-			}
-			byN := map[int]study.LevelRow{}
-			for _, r := range rep.Levels.Rows {
-				byN[r.N] = r
-			}
-			for _, n := range lc.ns {
-				r := mustRef(t, lc.name, "E", strconv.Itoa(n))
-				row, ok := byN[n]
-				if !ok {
-					t.Errorf("%s E[%d]: missing from the report", lc.name, n)
-					continue
-				}
-				if row.Error != "" {
-					t.Errorf("%s E[%d]: %s", lc.name, n, row.Error)
-				}
-				judge(t, fmt.Sprintf("%s E[%d]", lc.name, n), r, float64(row.WKB), float64(row.WKBErr),
-					float64(row.Numeric), float64(row.NumErr), true, true)
-				t.Logf("%s E[%d]: method %s order %d maslov %d by order %v warnings %v", lc.name, n, row.Method, row.Order, row.Maslov, row.ByOrder, row.Warnings)
-			}
+			rep, byN := runLevels(t, lc.name, lc.toml)
+			judgeLevels(t, "", lc.name, lc.ns, byN, func(q, at string) ref { return mustRef(t, lc.name, q, at) })
 			for _, k := range lc.splits {
 				r := mustRef(t, lc.name, "splitting", strconv.Itoa(k))
 				what := fmt.Sprintf("%s splitting[%d]", lc.name, k)
@@ -622,4 +569,76 @@ func TestAllStudies(t *testing.T) {
 // same reports whether two figures are equal, NaN equal to NaN.
 func same(a, b study.Number) bool {
 	return a == b || (math.IsNaN(float64(a)) && math.IsNaN(float64(b)))
+}
+
+// runLevels parses and runs a bound-state case and indexes its rows by n.
+func runLevels(t *testing.T, name, src string) (*study.Report, map[int]study.LevelRow) {
+	t.Helper()
+	c, err := cases.Parse(name+".toml", []byte(src))
+	if err != nil {
+		t.Fatalf("parse: %v\n%s", err, src)
+	}
+	rep := study.Run(c, study.Levels, &study.Options{Workers: 1})
+	if len(rep.Errors) > 0 {
+		t.Errorf("errors: %v", rep.Errors)
+	}
+	if rep.Levels == nil {
+		t.Fatalf("no levels report")
+	}
+	if len(rep.Levels.Warnings) > 0 {
+		t.Logf("warnings: %v", rep.Levels.Warnings)
+	}
+	byN := map[int]study.LevelRow{}
+	for _, r := range rep.Levels.Rows {
+		byN[r.N] = r
+	}
+	return rep, byN
+}
+
+// judgeLevels judges the levels ns of a case against the references that
+// lookup finds; prefix names the validation round in the messages.
+func judgeLevels(t *testing.T, prefix, name string, ns []int, byN map[int]study.LevelRow, lookup func(qty, at string) ref) {
+	t.Helper()
+	for _, n := range ns {
+		r := lookup("E", strconv.Itoa(n))
+		row, ok := byN[n]
+		if !ok {
+			t.Errorf("%s E[%d]: missing from the report", name, n)
+			continue
+		}
+		if row.Error != "" {
+			t.Errorf("%s E[%d]: %s", name, n, row.Error)
+		}
+		judge(t, fmt.Sprintf("%s%s E[%d]", prefix, name, n), r, float64(row.WKB), float64(row.WKBErr),
+			float64(row.Numeric), float64(row.NumErr), true, true)
+		t.Logf("%s E[%d]: method %s order %d maslov %d by order %v warnings %v", name, n, row.Method, row.Order, row.Maslov, row.ByOrder, row.Warnings)
+	}
+}
+
+// runScanPoint parses and runs a one-point scattering case and returns its row.
+func runScanPoint(t *testing.T, name, src string) study.ScanRow {
+	t.Helper()
+	c, err := cases.Parse(name+".toml", []byte(src))
+	if err != nil {
+		t.Fatalf("parse: %v\n%s", err, src)
+	}
+	rep := study.Run(c, study.Scattering, &study.Options{Workers: 1})
+	if len(rep.Errors) > 0 {
+		t.Errorf("errors: %v", rep.Errors)
+	}
+	if rep.Scan == nil || len(rep.Scan.Rows) != 1 {
+		t.Fatalf("no scan row")
+	}
+	return rep.Scan.Rows[0]
+}
+
+// pick returns R or T (q) and its estimate from an amplitude; zeros for nil.
+func pick(a *study.Amplitude, q string) (v, err float64) {
+	switch {
+	case a == nil:
+		return 0, 0
+	case q == "T":
+		return float64(a.T), float64(a.ErrT)
+	}
+	return float64(a.R), float64(a.ErrR)
 }
