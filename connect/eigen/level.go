@@ -373,7 +373,7 @@ func (sv *Solver) checkEnds(m *mesh, lv *Level) {
 		lv.Decay = math.Max(lv.Decay, decay)
 		if decay > sv.set.Tol {
 			lv.Status = IntervalShort
-			lv.Warnings = append(lv.Warnings, fmt.Sprintf("open end x = %g: decay factor %.3g from the turning point near x = %.6g exceeds the tolerance %.3g: widen the interval",
+			lv.Warnings = append(lv.Warnings, fmt.Sprintf("open end x = %g: decay factor %.3g from the turning point near x = %.6g exceeds the tolerance %.3g: the level's sensitivity to the end condition is measured and included in its error estimate; widen the interval to reduce it",
 				d.x, decay, turn, sv.set.Tol))
 		}
 	}
