@@ -216,7 +216,7 @@ type composer struct {
 // amplitudes returns r and t with the barrier integrals θ to order 2nθ and
 // the phases to order 2nφ; pert = 1 adds the quadrature errors to every
 // phase and θ (to measure their effect). The parabolic phase is
-// φ(ε) − S_nφ (parabolicBarrierSeries), ε = −θ/π, the subtracted series
+// φ(ε) − S_nφ (phaseSeries), ε = −θ/π, the subtracted series
 // being the part of φ's large-ε expansion the finite-part phases hold, to
 // the same order in 1/λ.
 func (c composer) amplitudes(nTheta, nPhase int, pert float64) (r, t complex128) {

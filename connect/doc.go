@@ -38,7 +38,7 @@
 // series that the finite parts already hold: the series expanded in 1/λ
 // with ε = ε₀ + ε₂ + … and cut at the same order, S_1 = 1/(24ε₀) (derived
 // at ParabolicBarrierOrder), S_2 = S_1 − ε₂/(24ε₀²) + 7/(2880ε₀³) (checked
-// against direct integration; see parabolicBarrierSeries). Only the Airy
+// against direct integration; see phaseSeries). Only the Airy
 // connection at a forbidden right end keeps its phases at order 2. The
 // error estimate of every figure is computed from the changes the next two
 // θ orders and the next phase order make (a geometric tail, and the phase

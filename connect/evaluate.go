@@ -49,7 +49,7 @@ func (c composer) evaluate(N, K int) (*evaluation, error) {
 	nInc := ev.nInc
 	// θ and the phases are taken to order 2·nInc (θ's least term); the
 	// parabolic phases subtract the part of φ's series the finite parts
-	// hold, cross terms with θ₂, θ₄, … included (parabolicBarrierSeries).
+	// hold, cross terms with θ₂, θ₄, … included (phaseSeries).
 	// The next phase order makes the phase error estimate.
 	ev.nPh = nInc
 	if c.terminal != nil {

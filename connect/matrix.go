@@ -133,7 +133,8 @@ func ParabolicBarrierOrder(theta float64, n int) Matrix { return parabolicBarrie
 
 func parabolicBarrier(theta float64, n int) Matrix { return parabolicBarrierRef(theta, theta, n) }
 
-// parabolicBarrierSeries is ParabolicBarrierOrder(θ, n) for a barrier whose
+// phaseSeries returns S_n, the part of the parabolic phase φ(ε) that the
+// finite-part phases to order 2n already hold, for a barrier whose
 // θ = θ₀ + θ₂ + … has higher-order terms: eps[k] = −θ_{2k}/π (k < n at
 // least where available). The finite-part phases to order 2n hold the large-ε
 // series of φ(ε), ε = −θ/π, expanded in 1/λ and cut at the same order: with
@@ -149,15 +150,6 @@ func parabolicBarrier(theta float64, n int) Matrix { return parabolicBarrierRef(
 // the phases of U/cosh²x (ħ = 0.1) against connect/direct improve from
 // 2e-5 at n = 1 to 3e-8 at n = 2 (E = 0.7U) and from 2e-4 to 3e-6 at 0.97U;
 // without it (ε instead of ε₀ in S_2) they get worse than at n = 1.
-func parabolicBarrierSeries(theta float64, eps []float64, n int) Matrix {
-	phi := special.ParabolicPhase(-theta / math.Pi)
-	if n > 0 && len(eps) > 0 {
-		phi -= phaseSeries(eps, n)
-	}
-	return parabolicWithPhase(theta, phi)
-}
-
-// phaseSeries returns S_n of parabolicBarrierSeries.
 func phaseSeries(eps []float64, n int) float64 {
 	e := make(jet.Series, n)
 	for k := range e {

@@ -11,7 +11,7 @@ import (
 	"github.com/turnpoint/turnpoint/wkb/jet"
 )
 
-// TestPhaseSeries checks S_n of parabolicBarrierSeries against its
+// TestPhaseSeries checks S_n of phaseSeries against its
 // expansion by hand: with 1/(ε₀+δ) = 1/ε₀ − δ/ε₀² + δ²/ε₀³ − … and
 // (ε₀+δ)^(−3) = ε₀^(−3) − 3δ/ε₀⁴ + …, δ = ε₂ + ε₄ cut at total order,
 //

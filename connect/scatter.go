@@ -599,20 +599,6 @@ func blockedBy(z complex128, pts []turning.Point) (complex128, bool) {
 	return lo, ok
 }
 
-// blocked reports whether the vertical from the real axis to z passes within
-// 5% of its length of another listed singularity.
-func blocked(z complex128, pts []turning.Point) bool {
-	for _, q := range pts {
-		if q.Z == z || imag(q.Z) >= imag(z) {
-			continue
-		}
-		if math.Abs(real(q.Z)-real(z)) < 0.05*imag(z) {
-			return true
-		}
-	}
-	return false
-}
-
 func dedupe(pts []turning.Point, tol float64) []turning.Point {
 	var out []turning.Point
 	for _, p := range pts {

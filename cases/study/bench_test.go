@@ -43,7 +43,7 @@ func BenchmarkScatterPoint(b *testing.B) {
 	})
 	b.Run("wkb+points+numeric", func(b *testing.B) {
 		for range b.N {
-			if row := scatterAt(c, 0.8, false); row.Error != "" {
+			if row := scatterAt(c, 0.8, false, nil); row.Error != "" {
 				b.Fatal(row.Error)
 			}
 		}

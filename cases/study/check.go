@@ -129,7 +129,7 @@ func expectedFigure(c *cases.Case, e *cases.Expectation, rep *Report, opt *Optio
 // does not contain that value.
 func rowFor(c *cases.Case, e *cases.Expectation, rep *Report) (ScanRow, error) {
 	if e.At == nil {
-		return scatterAt(c, 0, true), nil
+		return scatterAt(c, 0, true, nil), nil
 	}
 	if rep.Scan != nil {
 		for _, r := range rep.Scan.Rows {
@@ -141,5 +141,5 @@ func rowFor(c *cases.Case, e *cases.Expectation, rep *Report) (ScanRow, error) {
 	if c.Scan == nil {
 		return ScanRow{}, fmt.Errorf("the expectation gives at = %g but the case has no [scan]", *e.At)
 	}
-	return scatterAt(c, *e.At, false), nil
+	return scatterAt(c, *e.At, false, nil), nil
 }

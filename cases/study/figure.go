@@ -23,7 +23,6 @@ import (
 var (
 	colWKB = color.RGBA{R: 0x1f, G: 0x5f, B: 0xbf, A: 0xff}
 	colNum = color.RGBA{R: 0xd0, G: 0x40, B: 0x20, A: 0xff}
-	colErr = color.RGBA{R: 0x60, G: 0x60, B: 0x60, A: 0xff}
 )
 
 // newCanvas makes a canvas for path, SVG or PNG by its extension.

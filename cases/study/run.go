@@ -217,7 +217,7 @@ func figureTitle(c *cases.Case, what string) string {
 }
 
 // scatterAt computes one scan point by WKB and numerically.
-func scatterAt(c *cases.Case, v float64, base bool) ScanRow {
+func scatterAt(c *cases.Case, v float64, base bool, pc *pointCache) ScanRow {
 	row := ScanRow{At: v}
 	var p wkb.Problem
 	var err error
@@ -231,7 +231,7 @@ func scatterAt(c *cases.Case, v float64, base bool) ScanRow {
 		return row
 	}
 	a, b := c.Interval()
-	res, err := turning.Find(p.Q, c.SearchBox(), nil)
+	res, err := pc.find(p.Q, c.SearchBox(), v, !base)
 	var pts []turning.Point
 	if err != nil {
 		row.Error = fmt.Sprintf("turning points: %v", err)
@@ -264,7 +264,6 @@ func scatterAt(c *cases.Case, v float64, base bool) ScanRow {
 	// The λ-free term (the Liouville term of p waves, a centrifugal term)
 	// has singularities of its own, which the complex path must avoid too.
 	sing = append(sing, q1poles...)
-	sing = append(sing, effectiveSingularities(p, c.SearchBox())...)
 	if n, err := direct.Scatter(p, a, b, &direct.Settings{Singularities: sing}); err != nil {
 		row.Error = joinErr(row.Error, fmt.Sprintf("numeric: %v", err))
 	} else {
@@ -288,6 +287,7 @@ func joinErr(a, b string) string {
 func runScan(c *cases.Case, opt *Options, rep *Report) *ScanReport {
 	vals := c.Scan.Values()
 	sr := &ScanReport{Over: c.Scan.Over, Label: c.ScanLabel(), Rows: make([]ScanRow, len(vals))}
+	pc := &pointCache{} // shared by the rows and the degeneracy scan
 	var wg sync.WaitGroup
 	jobs := make(chan int)
 	var mu sync.Mutex
@@ -297,7 +297,7 @@ func runScan(c *cases.Case, opt *Options, rep *Report) *ScanReport {
 		go func() {
 			defer wg.Done()
 			for i := range jobs {
-				sr.Rows[i] = scatterAt(c, vals[i], false)
+				sr.Rows[i] = scatterAt(c, vals[i], false, pc)
 				if opt != nil && opt.Progress != nil {
 					mu.Lock()
 					done++
@@ -318,7 +318,7 @@ func runScan(c *cases.Case, opt *Options, rep *Report) *ScanReport {
 			if err != nil {
 				return nil, nil, err
 			}
-			res, err := turning.Find(p.Q, c.SearchBox(), nil)
+			res, err := pc.find(p.Q, c.SearchBox(), v, true)
 			if err != nil {
 				return nil, nil, err
 			}
@@ -565,38 +565,6 @@ func q1Singularities(p wkb.Problem, box turning.Box) []complex128 {
 	return out
 }
 
-// effectiveSingularities returns the zeros and poles of the whole
-// coefficient K² = λ²Q + Q1 in the box, when Q1 is present. Near a double
-// pole of Q1 with a negative coefficient (the ε = 0 points of p waves) K²
-// has zeros of its own, at distance ≈ 1/λ from the pole, which are not zeros
-// of Q: a raised integration path must pass below them too.
-func effectiveSingularities(p wkb.Problem, box turning.Box) []complex128 {
-	if p.Q1 == nil {
-		return nil
-	}
-	inv := complex(1/(p.Lambda*p.Lambda), 0)
-	keff := jet.Map(func(s jet.Series) jet.Series {
-		z := s[0]
-		n := s.Order()
-		var q, q1 jet.Series
-		if n == 0 {
-			q, q1 = jet.Series{p.Q.Eval(z)}, jet.Series{p.Q1.Eval(z)}
-		} else {
-			q, q1 = p.Q.Taylor(z, n), p.Q1.Taylor(z, n)
-		}
-		return jet.Add(q, jet.Scale(inv, q1))
-	})
-	res, err := turning.Find(keff, box, nil)
-	if err != nil {
-		return nil
-	}
-	var out []complex128
-	for _, pt := range res.Points {
-		out = append(out, pt.Z)
-	}
-	return out
-}
-
 // boundQ1Poles widens the WKB error estimates by the reflection the poles of
 // Q1 could cause. No connection formula here treats them (for p waves they
 // are the ε = 0 points, where λ²Q + Q1 has zeros of its own a distance ≈ 1/λ
@@ -666,4 +634,40 @@ func gaussLegendre32() ([]float64, []float64) {
 	ws := make([]float64, 32)
 	quad.Legendre{}.FixedLocations(xs, ws, -1, 1)
 	return xs, ws
+}
+
+// pointCache remembers the turning-point searches of a scan by scan value,
+// so that the degeneracy scan, which samples the same values when the scan
+// has at most 13 points, does not search again. A nil cache finds afresh.
+type pointCache struct {
+	mu  sync.Mutex
+	at  []float64
+	res []*turning.Result
+}
+
+// find returns the zeros and poles of q in box at scan value v, from the
+// cache when a search within 1e-12 relative of v was done (and keep says
+// the value is a scan value rather than the file's base values).
+func (pc *pointCache) find(q jet.Func, box turning.Box, v float64, keep bool) (*turning.Result, error) {
+	if pc == nil || !keep {
+		return turning.Find(q, box, nil)
+	}
+	pc.mu.Lock()
+	for i, x := range pc.at {
+		if math.Abs(x-v) <= 1e-12*math.Max(1, math.Abs(v)) {
+			r := pc.res[i]
+			pc.mu.Unlock()
+			return r, nil
+		}
+	}
+	pc.mu.Unlock()
+	res, err := turning.Find(q, box, nil)
+	if err != nil {
+		return nil, err
+	}
+	pc.mu.Lock()
+	pc.at = append(pc.at, v)
+	pc.res = append(pc.res, res)
+	pc.mu.Unlock()
+	return res, nil
 }
