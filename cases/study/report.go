@@ -112,10 +112,10 @@ type LineEntry struct {
 
 // DegeneracyEntry is a Stokes line joining two turning points.
 type DegeneracyEntry struct {
-	From int      `json:"from"`
-	To   int      `json:"to"`
-	Gap  Complex  `json:"gap"` // ∫ sqrt(Q) between them; Re gap = 0 at a degeneracy
-	Near *float64 `json:"near,omitempty"`
+	From   int     `json:"from"`
+	To     int     `json:"to"`
+	Gap    Complex `json:"gap"`     // ∫ sqrt(Q) between them; Re gap = 0 at a degeneracy
+	GapErr Number  `json:"gap_err"` // error estimate of the gap's quadrature
 }
 
 // ScanReport is a scattering scan.

@@ -194,7 +194,7 @@ func traceGeometry(c *cases.Case, p wkb.Problem, res *turning.Result, opt *Optio
 		sr.Lines = append(sr.Lines, e)
 	}
 	for _, d := range g.Degeneracies {
-		sr.Degeneracies = append(sr.Degeneracies, DegeneracyEntry{From: d.From, To: d.To, Gap: C(d.Gap)})
+		sr.Degeneracies = append(sr.Degeneracies, DegeneracyEntry{From: d.From, To: d.To, Gap: C(d.Gap), GapErr: Number(d.Err)})
 	}
 	if opt != nil && opt.FigureDir != "" {
 		a, b := c.Interval()

@@ -151,8 +151,8 @@ func writeStokes(w io.Writer, r *study.Report, full bool) {
 		fmt.Fprintln(w, "no Stokes line joins two turning points")
 	}
 	for _, d := range s.Degeneracies {
-		fmt.Fprintf(w, "DEGENERACY: a Stokes line joins turning points #%d and #%d (integral of sqrt Q between them %s)\n",
-			d.From, d.To, fmtC(d.Gap))
+		fmt.Fprintf(w, "DEGENERACY: a Stokes line joins turning points #%d and #%d (integral of sqrt Q between them %s %s)\n",
+			d.From, d.To, fmtC(d.Gap), fmtErr(d.GapErr))
 	}
 	if len(s.Degeneracies) > 0 {
 		note := "across a degeneracy a first-order connection formula is not valid"
@@ -206,7 +206,7 @@ func writeScan(w io.Writer, s *study.ScanReport) {
 		fmt.Fprintf(tw, "  %.6g\t%.6g\t%s\t%.10g\t%s\t%.1e\t%.6g\t%s\t%.10g\t%s\t%.1e\t%s\t%s\n", r.At,
 			float64(r.WKB.R), fmtErr(r.WKB.ErrR), float64(r.Numeric.R), fmtErr(r.Numeric.ErrR), float64(r.R.RelDiff),
 			float64(r.WKB.T), fmtErr(r.WKB.ErrT), float64(r.Numeric.T), fmtErr(r.Numeric.ErrT), float64(r.T.RelDiff),
-			verdict, key(r.WKB.Method))
+			verdict, key(fmt.Sprintf("%s; to order %d in 1/lambda", r.WKB.Method, r.WKB.Order)))
 	}
 	tw.Flush()
 	for i, f := range formulas {
@@ -221,8 +221,8 @@ func writeScan(w io.Writer, s *study.ScanReport) {
 		fmt.Fprintln(w, "  numerical check: "+numericMethods(s))
 	}
 	for _, d := range s.Degeneracies {
-		fmt.Fprintf(w, "Stokes degeneracy near %s = %.8g: a Stokes line joins the turning points %s and %s; first-order connection formulae change there\n",
-			s.Label, d.At, fmtC(d.T1), fmtC(d.T2))
+		fmt.Fprintf(w, "Stokes degeneracy near %s = %.8g %s: a Stokes line joins the turning points %s and %s; first-order connection formulae change there\n",
+			s.Label, d.At, fmtErr(d.Err), fmtC(d.T1), fmtC(d.T2))
 	}
 	if s.EverywhereDegenerate {
 		fmt.Fprintln(w, "a Stokes line joins the two turning points nearest the axis across the whole scan (as across any real barrier): the uniform connection is used throughout")
